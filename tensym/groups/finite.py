@@ -1,0 +1,279 @@
+"""Finite point groups: closure of generators, Cayley table and conjugacy classes.
+
+A :class:`PointGroup` is immutable.  Its operations are found by closing the
+generators under composition (``g @ h``: first h, then g); elements are
+identified by their float images (rounded at 1e-8, absolute) and their exact
+matrices are built along the closure tree, one exact product per element.
+
+Examples
+--------
+>>> from tensym.groups.finite import PointGroup
+>>> from tensym.groups.operations import Operation
+>>> g = PointGroup.from_generators([Operation.from_triplet("-y,x,z"), Operation.from_triplet("x,-y,z")])
+>>> g.order, len(g.classes)
+(8, 5)
+"""
+
+import numpy as np
+import sympy as sp
+
+from tensym.errors import GroupClosureError, InvalidOperationError
+from tensym.groups.operations import Operation
+
+__all__ = ["PointGroup", "MAX_GROUP_ORDER", "GroupNames"]
+
+#: Largest group order accepted from user generators (Ih has 120; cyclic groups
+#: C_n up to n = 240 fit).
+MAX_GROUP_ORDER = 240
+
+from dataclasses import dataclass
+
+
+@dataclass(frozen=True)
+class GroupNames:
+    """Names and classification of a group, as the catalog or recognition sets them.
+
+    Attributes
+    ----------
+    hm : str
+        Short Hermann-Mauguin symbol of the standard group, e.g. ``'4/mmm'`` (ASCII, overbar as '-').
+    full_hm : str
+        Full Hermann-Mauguin symbol, e.g. ``'4/m 2/m 2/m'``.
+    schoenflies : str
+        Schoenflies symbol, e.g. ``'D4h'``.
+    setting : str
+        Words describing the orientation, e.g. ``'4-fold along z, 2-folds along x and [110]'``.
+    crystal_system : str
+        'triclinic', 'monoclinic', 'orthorhombic', 'tetragonal', 'trigonal', 'hexagonal',
+        'cubic', 'icosahedral' or 'continuous'.
+    laue_class : str
+        Short symbol of the Laue class (the group with inversion added), e.g. ``'4/mmm'``.
+    rotation : sympy.ImmutableMatrix or None
+        Q with ``g_this = Q g_standard Q^T`` for every operation, when the group is a
+        re-oriented copy of the standard group; None for the standard setting.
+    """
+
+    hm: str = ""
+    full_hm: str = ""
+    schoenflies: str = ""
+    setting: str = ""
+    crystal_system: str = ""
+    laue_class: str = ""
+    rotation: object = None
+
+
+def _close(generators, limit):
+    ident = Operation.identity()
+    ops = [ident]
+    index = {ident.key: 0}
+    frontier = [0]
+    nums = [ident._num]
+    flags = [False]
+    gen_num = [(g._num, g.time_reversal) for g in generators]
+    while frontier:
+        new_frontier = []
+        for i in frontier:
+            for gi, (gn, gt) in enumerate(gen_num):
+                prod = gn @ nums[i]
+                flag = gt != flags[i]
+                key = tuple(int(v) for v in np.rint(prod.ravel() * 1e8)) + (int(flag),)
+                if key in index:
+                    continue
+                if len(ops) >= limit:
+                    raise GroupClosureError(
+                        f"the generators do not close to a finite group of order <= {limit}; "
+                        "check that every rotation angle is 360/n degrees and the axes are compatible"
+                    )
+                op = generators[gi] @ ops[i]
+                index[key] = len(ops)
+                ops.append(op)
+                nums.append(prod)
+                flags.append(flag)
+                new_frontier.append(len(ops) - 1)
+        frontier = new_frontier
+    return ops, index
+
+
+class PointGroup:
+    """A finite point group (possibly magnetic) in a definite Cartesian setting.
+
+    Build one with :meth:`from_generators` or take a named one from
+    ``tensym.point_group``.  All attributes are read-only.
+
+    Attributes
+    ----------
+    operations : tuple of Operation
+        Every element, identity first.
+    generators : tuple of Operation
+        The generators the group was built from.
+    lie_generators : tuple
+        Always empty (finite group); present so that solvers treat finite and
+        continuous groups alike.
+    names : GroupNames
+        Symbols and classification (empty strings for an unrecognised group).
+
+    Examples
+    --------
+    >>> from tensym.groups.operations import Operation
+    >>> g = PointGroup.from_generators([Operation.from_triplet("-x,-y,-z")])
+    >>> g.order, g.is_centrosymmetric
+    (2, True)
+    """
+
+    is_continuous = False
+    lie_generators = ()
+
+    def __init__(self, operations, generators, names=None):
+        self._ops = tuple(operations)
+        self._gens = tuple(generators)
+        self._names = names if names is not None else GroupNames()
+        self._index = {op.key: i for i, op in enumerate(self._ops)}
+        self._table = None
+        self._classes = None
+
+    @classmethod
+    def from_generators(cls, generators, *, names=None, limit=MAX_GROUP_ORDER):
+        """Close ``generators`` (Operations) to a finite group.
+
+        Raises
+        ------
+        GroupClosureError
+            If the closure exceeds ``limit`` elements or a generator has infinite order.
+        """
+        gens = []
+        for g in generators:
+            if not isinstance(g, Operation):
+                raise InvalidOperationError(f"generator {g!r} is not an Operation")
+            if g.order == 0:
+                raise GroupClosureError(
+                    f"generator {g.triplet()} has infinite order: its rotation angle is not 360/n degrees"
+                )
+            gens.append(g)
+        ops, _ = _close(gens, limit)
+        return cls(ops, gens, names)
+
+    # --- basic facts ---------------------------------------------------------
+    @property
+    def operations(self):
+        """All operations, identity first (a tuple)."""
+        return self._ops
+
+    @property
+    def generators(self):
+        """The generators (a tuple of Operation)."""
+        return self._gens
+
+    @property
+    def order(self):
+        """Number of elements."""
+        return len(self._ops)
+
+    @property
+    def names(self):
+        """The :class:`GroupNames` record."""
+        return self._names
+
+    @property
+    def symbol(self):
+        """Short Hermann-Mauguin symbol (empty when unrecognised)."""
+        return self._names.hm
+
+    @property
+    def schoenflies(self):
+        """Schoenflies symbol (empty when unrecognised)."""
+        return self._names.schoenflies
+
+    @property
+    def full_symbol(self):
+        """Full Hermann-Mauguin symbol."""
+        return self._names.full_hm
+
+    @property
+    def crystal_system(self):
+        """Crystal system name."""
+        return self._names.crystal_system
+
+    @property
+    def laue_class(self):
+        """Short symbol of the Laue class."""
+        return self._names.laue_class
+
+    @property
+    def setting(self):
+        """Words describing the orientation of the symmetry elements."""
+        return self._names.setting
+
+    def index(self, op):
+        """Position of ``op`` in :attr:`operations` (KeyError if absent)."""
+        return self._index[op.key]
+
+    def __contains__(self, op):
+        return isinstance(op, Operation) and op.key in self._index
+
+    # --- structure -------------------------------------------------------------
+    @property
+    def multiplication_table(self):
+        """Cayley table as an int numpy array: ``table[i, j]`` is the index of ops[i] @ ops[j]."""
+        if self._table is None:
+            n = len(self._ops)
+            mats = np.array([op._num for op in self._ops])
+            flags = np.array([op.time_reversal for op in self._ops])
+            prods = np.einsum("aij,bjk->abik", mats, mats)
+            table = np.empty((n, n), dtype=np.int64)
+            for a in range(n):
+                for b in range(n):
+                    key = tuple(int(v) for v in np.rint(prods[a, b].ravel() * 1e8)) + (int(flags[a] != flags[b]),)
+                    table[a, b] = self._index[key]
+            self._table = table
+        return self._table.copy()
+
+    @property
+    def classes(self):
+        """Conjugacy classes as a tuple of tuples of operation indices (sorted, identity class first)."""
+        if self._classes is None:
+            t = self.multiplication_table
+            n = len(self._ops)
+            inv = [int(np.nonzero(t[i] == 0)[0][0]) for i in range(n)]
+            seen = set()
+            classes = []
+            for a in range(n):
+                if a in seen:
+                    continue
+                cls_ = sorted({int(t[t[g, a], inv[g]]) for g in range(n)})
+                seen.update(cls_)
+                classes.append(tuple(cls_))
+            self._classes = tuple(classes)
+        return self._classes
+
+    @property
+    def is_centrosymmetric(self):
+        """True when the inversion -1 (unprimed) is an element."""
+        return Operation(sp.ImmutableMatrix(-sp.eye(3))) in self
+
+    @property
+    def is_polar(self):
+        """True when some direction is left fixed by every operation (a pyroelectric class)."""
+        m = sum(op._num for op in self._ops if not op.time_reversal) / max(
+            1, sum(1 for op in self._ops if not op.time_reversal)
+        )
+        return bool(np.linalg.matrix_rank(m, tol=1e-9) > 0)
+
+    @property
+    def is_enantiomorphic(self):
+        """True when every operation is proper (no inversion, mirror or rotoinversion)."""
+        return all(op.det == 1 for op in self._ops)
+
+    @property
+    def is_magnetic(self):
+        """True when some operation carries time reversal."""
+        return any(op.time_reversal for op in self._ops)
+
+    def conjugated(self, rotation, names=None):
+        """The group ``Q G Q^T`` for an exact rotation Q (operations re-oriented)."""
+        ops = [op.conjugated(rotation) for op in self._ops]
+        gens = [op.conjugated(rotation) for op in self._gens]
+        return PointGroup(ops, gens, names)
+
+    def __repr__(self):
+        label = self._names.hm or "unnamed"
+        return f"<PointGroup {label} order {self.order}>"

@@ -1,0 +1,383 @@
+"""Symmetry operations: exact orthogonal 3x3 matrices with a time-reversal flag.
+
+Conventions
+-----------
+* Operations act actively on Cartesian column vectors: ``r' = R r``.
+* Composition ``g @ h`` is the operation "first apply h, then g"; its matrix
+  is ``g.matrix * h.matrix`` and its time-reversal flag is the exclusive or.
+* A coordinate triplet such as ``-y,x-y,z`` lists the images of x, y, z: the
+  i-th entry is row i of the matrix (in the basis the triplet is written in).
+* In the hexagonal basis a = (1, 0, 0), b = (-1/2, sqrt(3)/2, 0), c = (0, 0, 1)
+  a triplet W gives the Cartesian matrix ``R = A W A^-1`` (A has columns a, b, c).
+* The rotation axis is the direction of the proper part ``det(R) R`` left fixed,
+  oriented so that its first non-zero component is positive; ``sense`` is +1 when
+  the rotation is counter-clockwise seen from the tip of that axis.
+
+Examples
+--------
+>>> from tensym.groups.operations import Operation
+>>> g = Operation.from_triplet("-y,x-y,z", basis="hexagonal")
+>>> g.symbol, g.axis
+('3+', (0, 0, 1))
+>>> (g @ g @ g).is_identity
+True
+>>> Operation.from_triplet("-x,-y,-z").kind
+'inversion'
+"""
+
+from dataclasses import dataclass, field
+import math
+import re
+
+import numpy as np
+import sympy as sp
+
+from tensym.errors import InvalidOperationError
+from tensym.exact.numbers import exact_matrix, float_key, is_orthogonal, matmul, to_float
+
+__all__ = ["Operation", "HEXAGONAL_BASIS"]
+
+_S3 = sp.sqrt(3)
+#: Columns are the hexagonal lattice vectors a, b, c in Cartesian axes.
+HEXAGONAL_BASIS = sp.ImmutableMatrix([[1, -sp.Rational(1, 2), 0], [0, _S3 / 2, 0], [0, 0, 1]])
+_BASES = ("cartesian", "hexagonal")
+_TERM = re.compile(r"([+-]?)\s*([0-9/.]*)\s*\*?\s*([xyz])")
+
+
+def _parse_component(text, where):
+    text = text.strip().replace(" ", "")
+    if not text:
+        raise InvalidOperationError(f"empty component in triplet {where!r}")
+    row = [sp.Integer(0)] * 3
+    pos = 0
+    for m in _TERM.finditer(text):
+        if m.start() != pos:
+            break
+        sign, num, var = m.groups()
+        if pos > 0 and not sign:
+            raise InvalidOperationError(f"missing + or - before {var!r} in triplet {where!r}")
+        coeff = sp.Rational(num) if num else sp.Integer(1)
+        if sign == "-":
+            coeff = -coeff
+        row["xyz".index(var)] += coeff
+        pos = m.end()
+    if pos != len(text):
+        raise InvalidOperationError(
+            f"cannot read {text!r} in triplet {where!r}: each component is a sum of "
+            "+/- x, y, z with optional rational factors (translations are not accepted)"
+        )
+    return row
+
+
+@dataclass(frozen=True, eq=False)
+class Operation:
+    """An exact point symmetry operation.
+
+    Parameters
+    ----------
+    matrix : sympy.ImmutableMatrix
+        Exact orthogonal 3x3 matrix in Cartesian axes (rational or algebraic entries).
+    time_reversal : bool
+        True for a primed operation (combined with time reversal 1').
+
+    Examples
+    --------
+    >>> Operation.from_matrix([[1, 0, 0], [0, -1, 0], [0, 0, 1]]).describe()
+    'm: mirror, normal [0, 1, 0]'
+    >>> Operation.from_triplet("x,y,z", time_reversal=True).symbol
+    "1'"
+    """
+
+    matrix: sp.ImmutableMatrix
+    time_reversal: bool = False
+    _num: np.ndarray = field(init=False, repr=False, compare=False)
+
+    def __post_init__(self):
+        object.__setattr__(self, "_num", to_float(self.matrix))
+
+    # --- constructors -------------------------------------------------
+    @classmethod
+    def from_matrix(cls, matrix, *, time_reversal=False, check=True):
+        """Build from a 3x3 matrix (lists, sympy or integer numpy); exact entries only.
+
+        Raises
+        ------
+        InvalidOperationError
+            If the matrix is not 3x3, has float entries or is not orthogonal.
+        """
+        if isinstance(matrix, Operation):
+            return matrix
+        try:
+            arr = np.asarray(matrix, dtype=object)
+        except Exception as exc:  # pragma: no cover - numpy accepts almost anything
+            raise InvalidOperationError(f"cannot read {matrix!r} as a 3x3 matrix") from exc
+        if arr.shape != (3, 3):
+            raise InvalidOperationError(f"an operation matrix must be 3x3, got shape {arr.shape}")
+        rows = []
+        for row in arr.tolist():
+            out = []
+            for v in row:
+                if isinstance(v, (float, np.floating)):
+                    if float(v).is_integer():
+                        v = int(v)
+                    else:
+                        raise InvalidOperationError(
+                            f"matrix entry {v!r} is a float; give exact entries "
+                            "(integers, fractions as strings like '1/2', or sympy numbers such as sqrt(3)/2)"
+                        )
+                try:
+                    out.append(sp.sympify(v))
+                except (sp.SympifyError, TypeError) as exc:
+                    raise InvalidOperationError(f"cannot read matrix entry {v!r}") from exc
+            rows.append(out)
+        m = exact_matrix(rows)
+        if check and not is_orthogonal(m):
+            raise InvalidOperationError(f"matrix {m.tolist()} is not orthogonal (R R^T != 1)")
+        return cls(m, bool(time_reversal))
+
+    @classmethod
+    def from_triplet(cls, text, *, basis="cartesian", time_reversal=None):
+        """Build from a coordinate triplet such as ``-y,x-y,z``.
+
+        A trailing ``,-1`` or ``,+1`` marks time reversal (``-1`` primed), as
+        magnetic groups write it; ``time_reversal`` may also be given directly.
+
+        Raises
+        ------
+        InvalidOperationError
+            For a malformed triplet, an unknown basis or a non-orthogonal result.
+        """
+        if basis not in _BASES:
+            raise InvalidOperationError(f"basis {basis!r} is not one of {_BASES}")
+        parts = [p for p in str(text).split(",")]
+        flag = None
+        if len(parts) == 4:
+            last = parts[3].strip()
+            if last not in ("-1", "+1", "1"):
+                raise InvalidOperationError(
+                    f"the fourth entry of triplet {text!r} must be +1 or -1 (time reversal), got {last!r}"
+                )
+            flag = last == "-1"
+            parts = parts[:3]
+        if len(parts) != 3:
+            raise InvalidOperationError(
+                f"a triplet has three comma-separated components (optionally a fourth +1/-1), got {text!r}"
+            )
+        if time_reversal is not None:
+            if flag is not None and flag != bool(time_reversal):
+                raise InvalidOperationError(f"triplet {text!r} contradicts time_reversal={time_reversal}")
+            flag = bool(time_reversal)
+        w = sp.Matrix([_parse_component(p, text) for p in parts])
+        if basis == "hexagonal":
+            w = HEXAGONAL_BASIS * w * HEXAGONAL_BASIS.inv()
+        m = exact_matrix(w)
+        if not is_orthogonal(m):
+            raise InvalidOperationError(
+                f"triplet {text!r} ({basis} basis) is not an orthogonal operation in Cartesian axes"
+                + ("" if basis == "hexagonal" else "; for a hexagonal-basis triplet pass basis='hexagonal'")
+            )
+        return cls(m, bool(flag))
+
+    @classmethod
+    def identity(cls):
+        """The identity operation 1."""
+        return cls(sp.ImmutableMatrix(sp.eye(3)))
+
+    # --- algebra --------------------------------------------------------
+    def __matmul__(self, other):
+        if not isinstance(other, Operation):
+            return NotImplemented
+        return Operation(matmul(self.matrix, other.matrix), self.time_reversal != other.time_reversal)
+
+    def inverse(self):
+        """The inverse operation (the transpose matrix, same time-reversal flag)."""
+        return Operation(sp.ImmutableMatrix(self.matrix.T), self.time_reversal)
+
+    def conjugated(self, rotation):
+        """``Q g Q^T`` for an exact orthogonal ``rotation`` Q (re-orientation)."""
+        q = sp.Matrix(rotation)
+        return Operation(matmul(matmul(q, self.matrix), q.T), self.time_reversal)
+
+    @property
+    def key(self):
+        """Hashable identity key: float image rounded at 1e-8, plus the time flag."""
+        return float_key(self._num) + (int(self.time_reversal),)
+
+    def __eq__(self, other):
+        return isinstance(other, Operation) and self.key == other.key
+
+    def __hash__(self):
+        return hash(self.key)
+
+    def __repr__(self):
+        tr = ", time_reversal=True" if self.time_reversal else ""
+        return f"Operation.from_triplet({self.triplet()!r}{tr})"
+
+    # --- numeric view ---------------------------------------------------
+    @property
+    def numeric(self):
+        """float64 copy of the matrix (3, 3)."""
+        return self._num.copy()
+
+    # --- geometry ---------------------------------------------------------
+    @property
+    def det(self):
+        """Determinant, +1 (proper) or -1 (improper)."""
+        return 1 if np.linalg.det(self._num) > 0 else -1
+
+    @property
+    def is_identity(self):
+        """True for the identity (time reversal ignored)."""
+        return bool(np.allclose(self._num, np.eye(3), atol=1e-9))
+
+    @property
+    def angle(self):
+        """Rotation angle of the proper part ``det(R) R`` as a sympy number in [0, pi]."""
+        tr = sp.nsimplify(sp.simplify(self.det * self.matrix.trace()))
+        c = sp.simplify((tr - 1) / 2)
+        return sp.simplify(sp.acos(c))
+
+    @property
+    def order(self):
+        """Order n of the spatial part (g^n = 1), or 0 when it is infinite."""
+        p = np.eye(3)
+        for n in range(1, 121):
+            p = self._num @ p
+            if np.allclose(p, np.eye(3), atol=1e-9):
+                return n
+        return 0
+
+    @property
+    def axis(self):
+        """Axis of the proper part as a tuple of sympy numbers (None for 1 and -1).
+
+        For a mirror this is the mirror normal; the direction is scaled so that its
+        entries are integers where they can be and oriented with the first non-zero
+        component positive.
+        """
+        proper = sp.Matrix(self.det * self.matrix)
+        if np.allclose(self.det * self._num, np.eye(3), atol=1e-9):
+            return None
+        ns = (proper - sp.eye(3)).applyfunc(sp.nsimplify).nullspace(simplify=True)
+        if len(ns) != 1:
+            return None
+        v = [sp.nsimplify(sp.simplify(x)) for x in ns[0]]
+        first = next(x for x in v if x != 0)
+        v = [sp.simplify(x / first) for x in v]
+        if all(x.is_Rational for x in v):
+            scale = math.lcm(*[int(x.q) for x in v])
+            ints = [int(x * scale) for x in v]
+            g = math.gcd(*ints)
+            v = [sp.Integer(x // g) for x in ints]
+        return tuple(sp.nsimplify(x) for x in v)
+
+    @property
+    def sense(self):
+        """+1 or -1: the sense of the proper rotation about ``axis`` (0 if none or 2-fold)."""
+        ax = self.axis
+        if ax is None:
+            return 0
+        r = self.det * self._num
+        w = np.array([r[2, 1] - r[1, 2], r[0, 2] - r[2, 0], r[1, 0] - r[0, 1]])
+        s = float(np.dot(w, np.array([float(x) for x in ax], dtype=float)))
+        if abs(s) < 1e-9:
+            return 0
+        return 1 if s > 0 else -1
+
+    @property
+    def kind(self):
+        """One of 'identity', 'rotation', 'inversion', 'mirror', 'rotoinversion'."""
+        if self.det == 1:
+            return "identity" if self.is_identity else "rotation"
+        if np.allclose(self._num, -np.eye(3), atol=1e-9):
+            return "inversion"
+        if abs(np.trace(self._num) - 1) < 1e-9:
+            return "mirror"
+        return "rotoinversion"
+
+    @property
+    def symbol(self):
+        """Short symbol in the crystallographic style: 1, 2, 3+, 4-, -1, m, -3+, -6-; primed with '."""
+        prime = "'" if self.time_reversal else ""
+        kind = self.kind
+        if kind == "identity":
+            return "1" + prime
+        if kind == "inversion":
+            return "-1" + prime
+        if kind == "mirror":
+            return "m" + prime
+        ang = float(sp.N(self.angle))
+        n = round(2 * math.pi / ang) if ang > 1e-9 else 0
+        exact_n = n > 0 and abs(2 * math.pi / n - ang) < 1e-9
+        if not exact_n:
+            base = f"R({sp.nsimplify(self.angle)})"
+        else:
+            base = str(n)
+        s = "" if n == 2 else ("+" if self.sense > 0 else "-")
+        if kind == "rotoinversion":
+            # -n+ is inversion after the rotation n+ (ITA convention): order and sense
+            # are those of the proper part det(R) R.
+            return "-" + base + s + prime
+        return base + s + prime
+
+    def describe(self):
+        """One-line geometric description (kind, order, axis or normal, sense).
+
+        Examples
+        --------
+        >>> Operation.from_triplet("z,x,y").describe()
+        '3+: 3-fold rotation, counter-clockwise, axis [1, 1, 1]'
+        """
+        kind = self.kind
+        tail = " (with time reversal)" if self.time_reversal else ""
+        ax = self.axis
+        axs = "[" + ", ".join(str(x) for x in ax) + "]" if ax is not None else ""
+        sym = self.symbol
+        if kind == "identity":
+            return f"{sym}: identity{tail}"
+        if kind == "inversion":
+            return f"{sym}: inversion{tail}"
+        if kind == "mirror":
+            return f"{sym}: mirror, normal {axs}{tail}"
+        sense = {1: ", counter-clockwise", -1: ", clockwise", 0: ""}[self.sense]
+        num = sym.lstrip("-").rstrip("+-'")
+        if kind == "rotation":
+            return f"{sym}: {num}-fold rotation{sense}, axis {axs}{tail}"
+        return f"{sym}: {num}-fold rotoinversion{sense}, axis {axs}{tail}"
+
+    def triplet(self, basis="cartesian"):
+        """The coordinate triplet, e.g. ``-y,x-y,z`` (basis 'cartesian' or 'hexagonal').
+
+        Raises
+        ------
+        InvalidOperationError
+            If the basis is unknown or the matrix is not rational in that basis.
+        """
+        if basis not in _BASES:
+            raise InvalidOperationError(f"basis {basis!r} is not one of {_BASES}")
+        m = sp.Matrix(self.matrix)
+        if basis == "hexagonal":
+            m = (HEXAGONAL_BASIS.inv() * m * HEXAGONAL_BASIS).applyfunc(sp.nsimplify)
+        parts = []
+        for i in range(3):
+            terms = []
+            for j, var in enumerate("xyz"):
+                c = sp.nsimplify(sp.simplify(m[i, j]))
+                if c == 0:
+                    continue
+                if c == 1:
+                    terms.append(("+", var))
+                elif c == -1:
+                    terms.append(("-", var))
+                else:
+                    if sp.Rational(0) > c if c.is_number and c.is_real else False:
+                        terms.append(("-", f"{sp.sstr(-c)}*{var}"))
+                    else:
+                        terms.append(("+", f"{sp.sstr(c)}*{var}"))
+            if not terms:
+                parts.append("0")
+                continue
+            s = "".join(sg + t for sg, t in terms)
+            parts.append(s[1:] if s.startswith("+") else s)
+        out = ",".join(parts)
+        return out + (",-1" if self.time_reversal else "")
