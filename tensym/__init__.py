@@ -1,0 +1,21 @@
+"""tensym: exact symmetry algebra of crystal property tensors, on top of sympy.
+
+The public API is the explicit list ``tensym.__all__``: plain functions and
+immutable result types.  See README.md for conventions and settings.
+
+Examples
+--------
+>>> import tensym
+>>> isinstance(tensym.__all__, list)
+True
+"""
+
+from tensym import errors
+
+__all__ = ["errors"]
+
+# --- groups (owned by the groups work) -------------------------------------
+# --- representations --------------------------------------------------------
+# --- tensors ------------------------------------------------------------------
+# --- data -----------------------------------------------------------------------
+# --- output ---------------------------------------------------------------------
