@@ -16,7 +16,7 @@ Matrix([
 [ 0,  0, 1]])
 """
 
-from tensym.exact.numbers import (
+from tensym.exact.matrices import (
     exact_matrix,
     float_key,
     is_orthogonal,

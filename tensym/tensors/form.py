@@ -1,0 +1,395 @@
+"""Reduced tensor forms: ``tensor_form(what, group)`` and the TensorForm result.
+
+Examples
+--------
+>>> import tensym
+>>> f = tensym.tensor_form("elastic_stiffness", "6/mmm")
+>>> f.n_independent, f.symbols
+(5, (c11, c12, c13, c33, c44))
+>>> [r for r in f.relations if str(r.lhs) == "c66"]
+[Eq(c66, c11/2 - c12/2)]
+"""
+
+from dataclasses import dataclass, field
+from fractions import Fraction
+from functools import lru_cache
+
+import numpy as np
+import sympy as sp
+
+from tensym.errors import DataError, InvalidOptionError, InvalidSpecError
+from tensym.tensors.catalog import VOIGT_PAIRS, Property, get_property
+from tensym.tensors.solver import solve_invariants
+from tensym.tensors.spec import TensorSpec
+
+__all__ = ["TensorForm", "tensor_form", "as_property", "group_key"]
+
+
+def as_property(what, *, symbol=None):
+    """A Property for a catalog name, a Property or a TensorSpec (generic labels 'T123').
+
+    Raises
+    ------
+    UnknownPropertyError
+        For a name not in the catalog.
+    InvalidSpecError
+        For any other type.
+    """
+    if isinstance(what, Property):
+        prop = what
+    elif isinstance(what, TensorSpec):
+        groups = tuple((i,) for i in range(what.rank))
+        prop = Property("tensor", what, "T", groups, (False,) * what.rank, f"rank-{what.rank} tensor")
+    elif isinstance(what, str):
+        prop = get_property(what)
+    else:
+        raise InvalidSpecError(
+            f"expected a property name, a Property or a TensorSpec, got {type(what).__name__}"
+        )
+    if symbol is not None:
+        if not isinstance(symbol, str) or not symbol.isidentifier():
+            raise InvalidSpecError(f"symbol must be a name such as 'c' or 'chi', got {symbol!r}")
+        prop = Property(prop.name, prop.spec, symbol, prop.voigt_groups, prop.halved, prop.title, prop.convention)
+    return prop
+
+
+def _resolve_group(group):
+    try:
+        from tensym.groups import as_group
+    except ImportError:  # pragma: no cover - the catalog is part of the package
+        as_group = None
+    if as_group is not None:
+        return as_group(group)
+    if isinstance(group, str):
+        raise InvalidSpecError("group symbols need tensym.groups.as_group")
+    return group
+
+
+def group_key(group):
+    """Cache key of a group: its generators' keys and Lie generators."""
+    return (
+        tuple(g.key for g in group.generators),
+        tuple(tuple(str(x) for x in L) for L in group.lie_generators),
+    )
+
+
+def _voigt_label(idx, groups):
+    out = []
+    for g in groups:
+        if len(g) == 1:
+            out.append(idx[g[0]] + 1)
+        else:
+            out.append(VOIGT_PAIRS[(idx[g[0]], idx[g[1]])])
+    return tuple(out)
+
+
+def _factor(idx, groups, halved):
+    f = Fraction(1)
+    for g, h in zip(groups, halved):
+        if h and len(g) == 2 and idx[g[0]] != idx[g[1]]:
+            f /= 2
+    return f
+
+
+@lru_cache(maxsize=128)
+def _labelling(spec, groups, halved):
+    """Per orbit: canonical Voigt label (smallest over members) and factor of the representative."""
+    orb = spec.orbits
+    labels, factors = [], []
+    shape = (3,) * spec.rank
+    for o, mem in enumerate(orb.members):
+        best = None
+        for flat in mem:
+            idx = tuple(int(x) for x in np.unravel_index(int(flat), shape)) if spec.rank else ()
+            lab = _voigt_label(idx, groups)
+            if best is None or lab < best[0]:
+                best = (lab, idx)
+        labels.append(best[0])
+        factors.append(_factor(orb.reps[o], groups, halved))
+    return tuple(labels), tuple(factors)
+
+
+@lru_cache(maxsize=512)
+def _solve_cached(spec, groups, halved, gkey, group_ref):
+    labels, factors = _labelling(spec, groups, halved)
+    return solve_invariants(spec, group_ref[0], factors=factors, priority=labels)
+
+
+class _GroupRef(tuple):
+    """A 1-tuple holding a group, hashed by the group's key (for the solver cache)."""
+
+    def __hash__(self):
+        return hash(group_key(self[0]))
+
+    def __eq__(self, other):
+        return isinstance(other, _GroupRef) and group_key(self[0]) == group_key(other[0])
+
+
+def _label_text(lab):
+    return "".join(str(x) for x in lab)
+
+
+@dataclass(frozen=True)
+class TensorForm:
+    """The symmetry-reduced form of a property tensor in a point group.
+
+    Attributes
+    ----------
+    property : Property
+        The property (or a generic Property for a bare TensorSpec).
+    group : PointGroup or ContinuousGroup
+        The group, in its own setting (axes of the tensor components).
+    symbols : tuple of sympy.Symbol
+        The independent constants (real symbols), named as handbooks name them
+        (c11, c12, d31, epsilon11, ...): the lowest Voigt labels are chosen.
+    n_independent : int
+        ``len(symbols)``.
+
+    Notes
+    -----
+    ``tensor``, ``voigt`` and ``relations`` are built on first use and cached;
+    every value handed out is an immutable sympy object or a new numpy array.
+    """
+
+    property: Property
+    group: object
+    symbols: tuple
+    n_independent: int
+    _coeffs: tuple = field(repr=False)
+    _labels: tuple = field(repr=False)
+    _factors: tuple = field(repr=False)
+    _free: tuple = field(repr=False)
+    _cache: dict = field(default_factory=dict, repr=False, compare=False)
+
+    # --- symbolic views -------------------------------------------------------
+    def _orbit_values(self):
+        """Voigt-variable value of each orbit as a sympy expression."""
+        if "values" not in self._cache:
+            vals = []
+            for terms in self._coeffs:
+                vals.append(sp.Add(*[c * self.symbols[i] for i, c in terms]) if terms else sp.Integer(0))
+            self._cache["values"] = tuple(vals)
+        return self._cache["values"]
+
+    @property
+    def spec(self):
+        """The TensorSpec."""
+        return self.property.spec
+
+    @property
+    def tensor(self):
+        """sympy ImmutableDenseNDimArray of shape (3,)*rank: the full Cartesian tensor."""
+        if "tensor" not in self._cache:
+            orb = self.spec.orbits
+            vals = self._orbit_values()
+            comp = [sp.Integer(0)] * (3**self.spec.rank)
+            tvals = [vals[o] * sp.Rational(self._factors[o].numerator, self._factors[o].denominator)
+                     for o in range(len(vals))]
+            for flat in range(3**self.spec.rank):
+                o = int(orb.orbit_of[flat])
+                if o >= 0 and tvals[o] != 0:
+                    comp[flat] = tvals[o] * int(orb.sign_of[flat])
+            self._cache["tensor"] = sp.ImmutableDenseNDimArray(comp, (3,) * self.spec.rank)
+        return self._cache["tensor"]
+
+    def _voigt_entry(self, vidx):
+        """Value of the Voigt entry with Voigt indices ``vidx`` (tuple)."""
+        prop = self.property
+        idx = [0] * self.spec.rank
+        inv = {1: (0, 0), 2: (1, 1), 3: (2, 2), 4: (1, 2), 5: (0, 2), 6: (0, 1)}
+        for g, v in zip(prop.voigt_groups, vidx):
+            if len(g) == 1:
+                idx[g[0]] = v - 1
+            else:
+                idx[g[0]], idx[g[1]] = inv[v]
+        t = self.tensor[tuple(idx)] if self.spec.rank else self.tensor[()]
+        f = _factor(tuple(idx), prop.voigt_groups, prop.halved)
+        return sp.expand(t / sp.Rational(f.numerator, f.denominator))
+
+    @property
+    def voigt(self):
+        """The form in Voigt notation with the property's factor convention.
+
+        A sympy ImmutableMatrix for one or two index groups (3x6 for d, 6x6 for c,
+        3x3 for epsilon, a 3x1 column for p); an ImmutableDenseNDimArray for more
+        groups (6x6x6 for third-order elastic constants).
+        """
+        if "voigt" not in self._cache:
+            groups = self.property.voigt_groups
+            dims = [3 if len(g) == 1 else 6 for g in groups]
+            if not dims:
+                out = sp.ImmutableMatrix([[self.tensor[()]]])
+            else:
+                from itertools import product
+
+                entries = [self._voigt_entry(tuple(v + 1 for v in vi)) for vi in product(*[range(d) for d in dims])]
+                if len(dims) == 1:
+                    out = sp.ImmutableMatrix(dims[0], 1, entries)
+                elif len(dims) == 2:
+                    out = sp.ImmutableMatrix(dims[0], dims[1], entries)
+                else:
+                    out = sp.ImmutableDenseNDimArray(entries, tuple(dims))
+            self._cache["voigt"] = out
+        return self._cache["voigt"]
+
+    def label_symbol(self, label):
+        """The real sympy Symbol named by property letter + label digits (e.g. 'c66')."""
+        return sp.Symbol(self.property.symbol + _label_text(label), real=True)
+
+    @property
+    def relations(self):
+        """tuple of sympy Eq, one for every component that is tied or vanishes.
+
+        Each left side is the symbol of the component's Voigt label (e.g. c66),
+        each right side its value in the independent constants.
+        """
+        if "relations" not in self._cache:
+            vals = self._orbit_values()
+            free = set(self._free)
+            rels = []
+            for o in sorted(range(len(vals)), key=lambda o: self._labels[o]):
+                if o in free:
+                    continue
+                rels.append(sp.Eq(self.label_symbol(self._labels[o]), vals[o], evaluate=False))
+            self._cache["relations"] = tuple(rels)
+        return self._cache["relations"]
+
+    @property
+    def zero_components(self):
+        """Labels (strings, e.g. 'c14') of the components the symmetry forces to vanish."""
+        vals = self._orbit_values()
+        return tuple(self.property.symbol + _label_text(self._labels[o])
+                     for o in sorted(range(len(vals)), key=lambda o: self._labels[o]) if vals[o] == 0)
+
+    # --- numeric views --------------------------------------------------------
+    def _numeric_values(self, values):
+        if not isinstance(values, dict):
+            if len(values) != self.n_independent:
+                raise DataError(
+                    f"expected {self.n_independent} values for {', '.join(map(str, self.symbols))}, got {len(values)}"
+                )
+            values = dict(zip(self.symbols, values))
+        names = {str(s): s for s in self.symbols}
+        out = {}
+        for k, v in values.items():
+            key = str(k)
+            if key not in names:
+                raise DataError(f"{key!r} is not an independent constant here; expected: {', '.join(names)}")
+            v = float(v)
+            if not np.isfinite(v):
+                raise DataError(f"value of {key} is not finite: {v}")
+            out[key] = v
+        missing = [n for n in names if n not in out]
+        if missing:
+            raise DataError(f"missing values for {', '.join(missing)}")
+        return np.array([out[str(s)] for s in self.symbols], dtype=np.float64)
+
+    def numeric_basis(self):
+        """float64 array (n_independent, 3, ..., 3): the tensor for each constant set to 1.
+
+        The rows span the invariant subspace (not orthonormal).
+        """
+        if "basis" not in self._cache:
+            orb = self.spec.orbits
+            k = self.n_independent
+            B = np.zeros((k, 3**self.spec.rank), dtype=np.float64)
+            for o, terms in enumerate(self._coeffs):
+                mem = orb.members[o]
+                f = float(self._factors[o])
+                for i, c in terms:
+                    B[i, mem] += float(c) * f * orb.sign_of[mem]
+            self._cache["basis"] = B.reshape((k,) + (3,) * self.spec.rank)
+        return self._cache["basis"].copy()
+
+    def evaluate(self, values, *, full=False):
+        """Numeric tensor for given constants, as a new float64 numpy array.
+
+        Parameters
+        ----------
+        values : dict or sequence
+            ``{symbol or name: value}`` for every independent constant, or the
+            values in the order of :attr:`symbols`.
+        full : bool
+            Return the full Cartesian tensor (3,)*rank instead of the Voigt form.
+
+        Raises
+        ------
+        DataError
+            For a missing, unknown or non-finite value.
+        """
+        x = self._numeric_values(values)
+        tensor = np.tensordot(x, self.numeric_basis(), axes=1) if self.n_independent else np.zeros((3,) * self.spec.rank)
+        if full:
+            return tensor
+        from tensym.tensors.voigt import to_voigt
+
+        return to_voigt(tensor, self.property)
+
+    # --- display -------------------------------------------------------------
+    def latex(self, *, standalone=False):
+        """LaTeX fragment (amsmath): the Voigt matrix (or tensor) and the relations."""
+        from tensym.tensors.render import form_latex
+
+        return form_latex(self, standalone=standalone)
+
+    def _repr_latex_(self):
+        return "$$" + self.latex() + "$$"
+
+    def __str__(self):
+        from tensym.tensors.render import form_text
+
+        return form_text(self)
+
+    def __repr__(self):
+        gname = getattr(self.group, "symbol", "") or "group"
+        return (f"<TensorForm {self.property.name} in {gname}: {self.n_independent} independent "
+                f"({', '.join(map(str, self.symbols))})>")
+
+
+def tensor_form(what, group, *, symbol=None):
+    """The symmetry-reduced form of a property tensor in a point group.
+
+    Parameters
+    ----------
+    what : str, Property or TensorSpec
+        A catalog name (see ``tensym.property_names()``) or a TensorSpec.
+    group : group object or str
+        A point group, continuous or magnetic group, or its symbol.
+    symbol : str, optional
+        Replace the property's letter in the symbol names.
+
+    Returns
+    -------
+    TensorForm
+
+    Raises
+    ------
+    UnknownPropertyError
+        For an unknown property name.
+    UnknownGroupError
+        For an unknown group symbol.
+
+    Examples
+    --------
+    >>> import tensym
+    >>> f = tensym.tensor_form("piezoelectric_d", "32")
+    >>> f.symbols
+    (d11, d14)
+    >>> f.voigt.row(0)
+    Matrix([[d11, -d11, 0, d14, 0, 0]])
+    """
+    prop = as_property(what, symbol=symbol)
+    g = _resolve_group(group)
+    sol = _solve_cached(prop.spec, prop.voigt_groups, prop.halved, group_key(g), _GroupRef((g,)))
+    labels, factors = _labelling(prop.spec, prop.voigt_groups, prop.halved)
+    syms = tuple(sp.Symbol(prop.symbol + _label_text(labels[o]), real=True) for o in sol.free)
+    return TensorForm(
+        property=prop,
+        group=g,
+        symbols=syms,
+        n_independent=len(syms),
+        _coeffs=sol.coeffs,
+        _labels=labels,
+        _factors=factors,
+        _free=sol.free,
+    )

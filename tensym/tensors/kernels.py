@@ -1,0 +1,196 @@
+"""Private kernels: the action of one operation on a reduced tensor space.
+
+The reduced space has one coordinate per orbit of index tuples (see
+``TensorSpec.orbits``); coordinate o is the tensor component at the orbit's
+representative index, and basis vector E_o is the signed sum of the unit
+tensors of the orbit.  ``M[o', o]`` is the E_o' coefficient of R.E_o, so that
+the components t of a tensor become ``M t`` under the operation.
+
+Three kernels, chosen by the operation (reasons in each docstring):
+
+* signed permutation matrices (all of the cubic, tetragonal, orthorhombic,
+  monoclinic and triclinic generators, and the 2-folds and mirrors of the
+  hexagonal family): M is monomial, found in O(dim * rank) by mapping
+  representatives;
+* matrices with entries in one quadratic field Q(sqrt(d)) (the 3- and 6-folds,
+  icosahedral operations): M = (A + sqrt(d) B) / D**rank with integer A, B,
+  built by Kronecker products of integer rows in numpy int64 and summed over
+  orbits; exact, and as fast as the same computation in float64;
+* anything else (a group re-oriented by a rotation with entries in a larger
+  field): exact sympy arithmetic, slower but general.
+
+Examples
+--------
+>>> from tensym.tensors.spec import TensorSpec
+>>> from tensym.tensors.kernels import monomial_form, monomial_action
+>>> spec = TensorSpec(2, ["ji"])
+>>> perm, signs = monomial_form([[0, 1, 0], [1, 0, 0], [0, 0, -1]])
+>>> monomial_action(spec.orbits, perm, signs)[:3]
+[(3, 1), (1, 1), (4, -1)]
+"""
+
+from fractions import Fraction
+import math
+
+import numpy as np
+import sympy as sp
+
+from tensym.exact.matrices import quadratic_field, split_quadratic
+
+__all__ = [
+    "monomial_form",
+    "monomial_action",
+    "quadratic_form",
+    "quadratic_action",
+    "float_action",
+    "lie_action",
+    "sympy_action",
+]
+
+
+def monomial_form(matrix):
+    """(perm, signs) with R[perm[i], i] = signs[i] when R is a signed permutation, else None.
+
+    R maps basis vector e_i to signs[i] * e_perm[i].
+    """
+    m = sp.Matrix(matrix)
+    perm, signs = [None] * 3, [0] * 3
+    for i in range(3):
+        col = [m[r, i] for r in range(3)]
+        nz = [r for r in range(3) if col[r] != 0]
+        if len(nz) != 1 or col[nz[0]] not in (1, -1):
+            return None
+        perm[i] = nz[0]
+        signs[i] = int(col[nz[0]])
+    return tuple(perm), tuple(signs)
+
+
+def monomial_action(orbits, perm, signs):
+    """For each orbit o, (o', s) with R.E_o = s E_o' for a signed permutation R."""
+    out = []
+    for rep in orbits.reps:
+        img = tuple(perm[i] for i in rep)
+        s = 1
+        for i in rep:
+            s *= signs[i]
+        o2, s2 = orbits.locate(img)
+        out.append((o2, s * s2))
+    return out
+
+
+def quadratic_form(matrix):
+    """(d, D, A, B) with R = (A + sqrt(d) B) / D for integer arrays A, B, or None.
+
+    d is 1 for a rational matrix (then B is zero).
+    """
+    entries = list(sp.Matrix(matrix))
+    d = quadratic_field(entries)
+    if d is None:
+        return None
+    parts = [split_quadratic(e, d) for e in entries]
+    den = 1
+    for a, b in parts:
+        den = math.lcm(den, a.denominator, b.denominator)
+    A = np.array([int(a * den) for a, _ in parts], dtype=np.int64).reshape(3, 3)
+    B = np.array([int(b * den) for _, b in parts], dtype=np.int64).reshape(3, 3)
+    return d, den, A, B
+
+
+def _aggregate(orbits, K):
+    """Sum the columns of K (over flat indices) into orbit columns with signs."""
+    cache = getattr(orbits, "_agg", None)
+    if cache is None:
+        flats = np.nonzero(orbits.orbit_of >= 0)[0]
+        order = flats[np.argsort(orbits.orbit_of[flats], kind="stable")]
+        starts = np.searchsorted(orbits.orbit_of[order], np.arange(len(orbits.reps)))
+        cache = (order, orbits.sign_of[order], starts)
+        orbits._agg = cache
+    order, sgn, starts = cache
+    return np.add.reduceat(K[:, order] * sgn, starts, axis=1)
+
+
+def _rep_array(orbits):
+    arr = getattr(orbits, "_reparr", None)
+    if arr is None:
+        arr = np.array(orbits.reps, dtype=np.int64).reshape(len(orbits.reps), orbits.rank)
+        orbits._reparr = arr
+    return arr
+
+
+def quadratic_action(orbits, qform):
+    """Integer arrays (A, B) with M = (A + sqrt(d) B) / D**rank, for qform = (d, D, A, B)."""
+    d, _, A1, B1 = qform
+    reps = _rep_array(orbits)
+    n = orbits.rank
+    if n == 0:
+        one = np.ones((1, 1), dtype=np.int64)
+        return one, np.zeros_like(one)
+    k0 = A1[reps[:, 0], :]
+    k1 = B1[reps[:, 0], :]
+    for k in range(1, n):
+        r0 = A1[reps[:, k], :]
+        r1 = B1[reps[:, k], :]
+        n0 = np.einsum("da,db->dab", k0, r0) + d * np.einsum("da,db->dab", k1, r1)
+        n1 = np.einsum("da,db->dab", k0, r1) + np.einsum("da,db->dab", k1, r0)
+        k0 = n0.reshape(len(reps), -1)
+        k1 = n1.reshape(len(reps), -1)
+    return _aggregate(orbits, k0), _aggregate(orbits, k1)
+
+
+def float_action(orbits, matrix):
+    """float64 M for a float 3x3 matrix (the numeric twin of quadratic_action)."""
+    R = np.asarray(matrix, dtype=np.float64)
+    reps = _rep_array(orbits)
+    n = orbits.rank
+    if n == 0:
+        return np.ones((1, 1))
+    k = R[reps[:, 0], :]
+    for j in range(1, n):
+        k = np.einsum("da,db->dab", k, R[reps[:, j], :]).reshape(len(reps), -1)
+    return _aggregate(orbits, k)
+
+
+def lie_action(orbits, generator):
+    """Exact integer matrix (numpy int64) of an integer antisymmetric generator L.
+
+    (dL.T)_{i1..in} = sum over positions k and c of L[i_k, c] T_{i1..c..in}.
+    """
+    L = [[int(sp.Integer(x)) for x in row] for row in sp.Matrix(generator).tolist()]
+    dim = len(orbits.reps)
+    N = np.zeros((dim, dim), dtype=np.int64)
+    for o2, rep in enumerate(orbits.reps):
+        for k, ik in enumerate(rep):
+            for c in range(3):
+                lv = L[ik][c]
+                if lv == 0:
+                    continue
+                idx = rep[:k] + (c,) + rep[k + 1:]
+                o, s = orbits.locate(idx)
+                if o >= 0:
+                    N[o2, o] += lv * s
+    return N
+
+
+def sympy_action(orbits, matrix):
+    """Exact M as a sympy Matrix for any exact matrix (general, slow path)."""
+    R = sp.Matrix(matrix)
+    dim = len(orbits.reps)
+    M = sp.zeros(dim, dim)
+    from itertools import product as _product
+
+    members = [
+        [(tuple(int(x) for x in np.unravel_index(f, (3,) * orbits.rank)), int(orbits.sign_of[f])) for f in mem]
+        for mem in orbits.members
+    ]
+    for o2, rep in enumerate(orbits.reps):
+        for o, mem in enumerate(members):
+            acc = sp.Integer(0)
+            for idx, s in mem:
+                term = sp.Integer(s)
+                for a, b in zip(rep, idx):
+                    term *= R[a, b]
+                    if term == 0:
+                        break
+                acc += term
+            M[o2, o] = sp.expand(acc)
+    return M

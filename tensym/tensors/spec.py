@@ -1,0 +1,297 @@
+"""Tensor specifications: rank, intrinsic index symmetry, axial and time parity.
+
+Conventions
+-----------
+* Index letters: a rank-n tensor's indices are named by the first n letters of
+  ``INDEX_LETTERS`` (``"ijklmnpqrstuvw"``; ``o`` is skipped), so the identity
+  order of a rank-4 tensor is ``"ijkl"``.
+* A symmetry string such as ``"jikl"`` states T_ijkl = T_jikl; a leading ``-``
+  states antisymmetry, T_ij = -T_ji for ``"-ji"``.  The strings generate a group
+  of signed index permutations; components fixed by a permutation of sign -1
+  vanish.
+* Polar tensors transform with R in every index; axial ones with det(R) R, that
+  is with an extra factor det(R); time-odd ones change sign under primed
+  (time-reversed) operations.
+
+Examples
+--------
+>>> from tensym.tensors.spec import TensorSpec
+>>> TensorSpec(4, ["jikl", "ijlk", "klij"]).dim
+21
+>>> TensorSpec(2, ["-ji"]).dim
+3
+"""
+
+from dataclasses import dataclass, field
+from functools import lru_cache
+from itertools import product
+
+import numpy as np
+import sympy as sp
+
+from tensym.errors import InvalidSpecError, RankLimitError
+
+__all__ = ["TensorSpec", "INDEX_LETTERS", "MAX_RANK"]
+
+INDEX_LETTERS = "ijklmnpqrstuvw"
+#: Highest rank accepted (3**MAX_RANK components are enumerated once per spec).
+MAX_RANK = 10
+
+
+def _parse_symmetry(text, rank):
+    if isinstance(text, (tuple, list)):
+        sign, perm = -1 if (len(text) == 2 and text[0] == -1) else 1, None
+        raise InvalidSpecError(
+            f"symmetry {text!r} must be a permuted index string such as 'jikl' or '-ji'"
+        )
+    if not isinstance(text, str):
+        raise InvalidSpecError(f"symmetry {text!r} must be a string such as 'jikl' or '-ji'")
+    s = text.strip()
+    sign = 1
+    if s.startswith("-"):
+        sign, s = -1, s[1:]
+    elif s.startswith("+"):
+        s = s[1:]
+    ident = INDEX_LETTERS[:rank]
+    if len(s) != rank or sorted(s) != sorted(ident):
+        raise InvalidSpecError(
+            f"symmetry {text!r} is not a permutation of the index letters {ident!r} of a rank-{rank} tensor"
+        )
+    # position p of the permuted string holds the letter of original position perm[p]
+    perm = tuple(ident.index(ch) for ch in s)
+    if perm == tuple(range(rank)) and sign == -1:
+        raise InvalidSpecError(f"symmetry {text!r} would make every component vanish (T = -T)")
+    return sign, perm
+
+
+def _close_perms(gens, rank):
+    ident = (1, tuple(range(rank)))
+    seen = {ident[1]: 1}
+    frontier = [ident]
+    while frontier:
+        nxt = []
+        for s, p in frontier:
+            for gs, gp in gens:
+                q = tuple(p[gp[k]] for k in range(rank))
+                qs = s * gs
+                if q in seen:
+                    if seen[q] != qs:
+                        return None
+                    continue
+                seen[q] = qs
+                nxt.append((qs, q))
+        frontier = nxt
+    return seen
+
+
+def _cycle_lengths(perm):
+    n = len(perm)
+    seen = [False] * n
+    out = []
+    for i in range(n):
+        if seen[i]:
+            continue
+        k, j = 0, i
+        while not seen[j]:
+            seen[j] = True
+            j = perm[j]
+            k += 1
+        out.append(k)
+    return tuple(sorted(out))
+
+
+class _Orbits:
+    """Orbits of index tuples under the signed permutation group (private kernel data).
+
+    Attributes: reps (tuple of index tuples, one per non-vanishing orbit, in
+    enumeration order), orbit_of (int array over flat indices: orbit number or
+    -1), sign_of (int array: +1/-1, 0 for vanishing), members (list of flat-index
+    arrays per orbit).
+    """
+
+    def __init__(self, rank, gens):
+        n = 3**rank
+        orbit_of = np.full(n, -1, dtype=np.int64)
+        sign_of = np.zeros(n, dtype=np.int64)
+        visited = np.zeros(n, dtype=bool)
+        weights = 3 ** np.arange(rank - 1, -1, -1)
+        reps, members = [], []
+        for flat, idx in enumerate(product(range(3), repeat=rank)):
+            if visited[flat]:
+                continue
+            signs = {idx: 1}
+            stack = [idx]
+            zero = False
+            while stack:
+                t = stack.pop()
+                st = signs[t]
+                for gs, gp in gens:
+                    u = tuple(t[gp[k]] for k in range(rank))
+                    su = st * gs
+                    if u in signs:
+                        if signs[u] != su:
+                            zero = True
+                        continue
+                    signs[u] = su
+                    stack.append(u)
+            flats = np.array([int(np.dot(weights, t)) for t in signs], dtype=np.int64)
+            visited[flats] = True
+            if zero:
+                continue
+            o = len(reps)
+            orbit_of[flats] = o
+            sign_of[flats] = np.array(list(signs.values()), dtype=np.int64)
+            reps.append(idx)
+            members.append(flats)
+        self.rank = rank
+        self.reps = tuple(reps)
+        self.orbit_of = orbit_of
+        self.sign_of = sign_of
+        self.members = members
+        self.weights = weights
+
+    def locate(self, idx):
+        """(orbit, sign) of an index tuple; orbit -1 for a vanishing component."""
+        f = int(np.dot(self.weights, idx))
+        return int(self.orbit_of[f]), int(self.sign_of[f])
+
+
+@lru_cache(maxsize=256)
+def _orbits(rank, gens):
+    return _Orbits(rank, gens)
+
+
+@dataclass(frozen=True)
+class TensorSpec:
+    """A tensor of given rank with intrinsic index symmetry and parity.
+
+    Parameters
+    ----------
+    rank : int
+        Number of indices, 0 <= rank <= MAX_RANK.
+    symmetries : sequence of str
+        Permuted index strings, each an equality with the identity order
+        (``"jikl"`` means T_ijkl = T_jikl; ``"-ji"`` means T_ij = -T_ji).
+    axial : bool
+        Transforms with an extra factor det(R) (a pseudo-tensor).
+    time_odd : bool
+        Changes sign under operations combined with time reversal.
+
+    Raises
+    ------
+    InvalidSpecError
+        For a malformed symmetry string or symmetries that contradict each other
+        (``["ji", "-ji"]``).
+    RankLimitError
+        For a rank outside 0..MAX_RANK.
+
+    Examples
+    --------
+    >>> s = TensorSpec(3, ["ikj"])
+    >>> s.dim, s.symmetries
+    (18, ('ikj',))
+    >>> TensorSpec(2, ["ji", "-ji"])
+    Traceback (most recent call last):
+    ...
+    tensym.errors.InvalidSpecError: symmetries ('ji', '-ji') contradict each other: some permutation would equal both +T and -T
+    """
+
+    rank: int
+    symmetries: tuple = ()
+    axial: bool = False
+    time_odd: bool = False
+    _gens: tuple = field(init=False, repr=False, compare=False)
+    _group: dict = field(init=False, repr=False, compare=False)
+
+    def __post_init__(self):
+        if isinstance(self.rank, bool) or not isinstance(self.rank, (int, np.integer)):
+            raise InvalidSpecError(f"rank must be an integer, got {self.rank!r}")
+        if not 0 <= int(self.rank) <= MAX_RANK:
+            raise RankLimitError(f"rank {self.rank} is outside the supported range 0..{MAX_RANK}")
+        object.__setattr__(self, "rank", int(self.rank))
+        if isinstance(self.symmetries, str):
+            raise InvalidSpecError(
+                f"symmetries must be a list of strings, e.g. [{self.symmetries!r}], not a bare string"
+            )
+        syms = tuple(str(s).strip() for s in self.symmetries)
+        object.__setattr__(self, "symmetries", syms)
+        gens = tuple(sorted({_parse_symmetry(s, self.rank) for s in syms}))
+        group = _close_perms(gens, self.rank)
+        if group is None:
+            raise InvalidSpecError(
+                f"symmetries {syms!r} contradict each other: some permutation would equal both +T and -T"
+            )
+        object.__setattr__(self, "axial", bool(self.axial))
+        object.__setattr__(self, "time_odd", bool(self.time_odd))
+        object.__setattr__(self, "_gens", gens)
+        object.__setattr__(self, "_group", group)
+
+    @property
+    def orbits(self):
+        """Private kernel data: the orbit structure of index tuples (shared, do not mutate)."""
+        return _orbits(self.rank, self._gens)
+
+    @property
+    def dim(self):
+        """Dimension of the space the index symmetry leaves (e.g. 21 for elasticity)."""
+        return len(self.orbits.reps)
+
+    @property
+    def basis_indices(self):
+        """Representative index tuple (0-based) of each basis orbit, in basis order."""
+        return self.orbits.reps
+
+    def permutation_group(self):
+        """The signed index permutations generated by ``symmetries``: tuple of (sign, perm)."""
+        return tuple(sorted((s, p) for p, s in self._group.items()))
+
+    @property
+    def cycle_index(self):
+        """Cycle structure of the permutation group: tuple of (sign, cycle lengths), one per element."""
+        return tuple(sorted((s, _cycle_lengths(p)) for p, s in self._group.items()))
+
+    def parity(self, op):
+        """The scalar factor (+1/-1) of ``op`` from axial and time-odd parity."""
+        f = 1
+        if self.axial and op.det < 0:
+            f = -f
+        if self.time_odd and op.time_reversal:
+            f = -f
+        return f
+
+    def character(self, op):
+        """Exact character of ``op`` on this tensor space.
+
+        chi(g) = parity(g) * (1/|S|) * sum over s in S of sign(s) * prod over cycles c of s
+        of tr(R^len(c)), with S the signed permutation group of the index symmetry.
+
+        Examples
+        --------
+        >>> from tensym.groups.operations import Operation
+        >>> TensorSpec(4, ["jikl", "ijlk", "klij"]).character(Operation.identity())
+        21
+        """
+        traces = _power_traces(op.matrix, self.rank)
+        total = sp.Integer(0)
+        for sign, cycles in self.cycle_index:
+            term = sp.Integer(sign)
+            for c in cycles:
+                term *= traces[c]
+            total += term
+        return sp.nsimplify(sp.expand(total / len(self._group))) * self.parity(op)
+
+    def as_space(self):
+        """This tensor space as a :class:`tensym.reps.space.Space`."""
+        from tensym.tensors.space import TensorSpace
+
+        return TensorSpace(self)
+
+
+def _power_traces(matrix, n):
+    m = sp.Matrix(matrix)
+    p = sp.eye(3)
+    out = {}
+    for k in range(1, n + 1):
+        p = (p * m).applyfunc(sp.expand)
+        out[k] = sp.expand(p.trace())
+    return out
