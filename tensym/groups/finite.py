@@ -14,19 +14,19 @@ Examples
 (8, 5)
 """
 
+from dataclasses import dataclass
+
 import numpy as np
 import sympy as sp
 
 from tensym.errors import GroupClosureError, InvalidOperationError
-from tensym.groups.operations import Operation
+from tensym.groups.operations import ORDER_SEARCH_LIMIT, Operation
 
 __all__ = ["PointGroup", "MAX_GROUP_ORDER", "GroupNames"]
 
 #: Largest group order accepted from user generators (Ih has 120; cyclic groups
 #: C_n up to n = 240 fit).
 MAX_GROUP_ORDER = 240
-
-from dataclasses import dataclass
 
 
 @dataclass(frozen=True)
@@ -49,8 +49,13 @@ class GroupNames:
     laue_class : str
         Short symbol of the Laue class (the group with inversion added), e.g. ``'4/mmm'``.
     rotation : sympy.ImmutableMatrix or None
-        Q with ``g_this = Q g_standard Q^T`` for every operation, when the group is a
-        re-oriented copy of the standard group; None for the standard setting.
+        Q (exact, proper orthogonal) with ``{g_this} = {Q g_std Q^T}``, where g_std runs
+        over the operations of the catalog setting ``setting_symbol``; None when the
+        group is that catalog setting itself (identical operations).
+    setting_symbol : str
+        Symbol of the catalog setting the names refer to, e.g. ``'-4m2'``, ``'312'``,
+        ``'112'`` (for the default setting of a class it is the class's own row,
+        e.g. ``'321'`` for 32); empty when the group is not in the catalog.
     """
 
     hm: str = ""
@@ -60,6 +65,7 @@ class GroupNames:
     crystal_system: str = ""
     laue_class: str = ""
     rotation: object = None
+    setting_symbol: str = ""
 
 
 def _close(generators, limit):
@@ -97,8 +103,10 @@ def _close(generators, limit):
 class PointGroup:
     """A finite point group (possibly magnetic) in a definite Cartesian setting.
 
-    Build one with :meth:`from_generators` or take a named one from
-    ``tensym.point_group``.  All attributes are read-only.
+    Build one with :meth:`from_generators`, ``tensym.group_from_generators`` or
+    take a named one from ``tensym.point_group``.  All attributes are read-only.
+    The full list of operations is made on first use (closure of the generators);
+    the generators alone are enough for invariant-tensor solvers.
 
     Attributes
     ----------
@@ -123,22 +131,45 @@ class PointGroup:
     is_continuous = False
     lie_generators = ()
 
-    def __init__(self, operations, generators, names=None):
-        self._ops = tuple(operations)
+    def __init__(self, operations, generators, names=None, *, limit=MAX_GROUP_ORDER):
         self._gens = tuple(generators)
         self._names = names if names is not None else GroupNames()
-        self._index = {op.key: i for i, op in enumerate(self._ops)}
+        self._limit = limit
+        self._ops = None
+        self._index = None
+        if operations is not None:
+            self._set_operations(tuple(operations))
         self._table = None
         self._classes = None
+
+    def _set_operations(self, ops):
+        self._ops = ops
+        self._index = {op.key: i for i, op in enumerate(ops)}
+
+    def _closed(self):
+        if self._ops is None:
+            ops, _ = _close(list(self._gens), self._limit)
+            self._set_operations(tuple(ops))
+        return self._ops
 
     @classmethod
     def from_generators(cls, generators, *, names=None, limit=MAX_GROUP_ORDER):
         """Close ``generators`` (Operations) to a finite group.
 
+        The closure is done at once, so that an infinite group is reported here.
+
         Raises
         ------
+        InvalidOperationError
+            If a generator is not an :class:`Operation`.
         GroupClosureError
             If the closure exceeds ``limit`` elements or a generator has infinite order.
+
+        Examples
+        --------
+        >>> from tensym.groups.operations import Operation
+        >>> PointGroup.from_generators([Operation.from_triplet("-y,x-y,z", basis="hexagonal")]).order
+        3
         """
         gens = []
         for g in generators:
@@ -146,17 +177,18 @@ class PointGroup:
                 raise InvalidOperationError(f"generator {g!r} is not an Operation")
             if g.order == 0:
                 raise GroupClosureError(
-                    f"generator {g.triplet()} has infinite order: its rotation angle is not 360/n degrees"
+                    f"generator {g.triplet()} has infinite order: its rotation angle is not 360/n degrees "
+                    f"for an integer n <= {ORDER_SEARCH_LIMIT}"
                 )
             gens.append(g)
         ops, _ = _close(gens, limit)
-        return cls(ops, gens, names)
+        return cls(ops, gens, names, limit=limit)
 
     # --- basic facts ---------------------------------------------------------
     @property
     def operations(self):
         """All operations, identity first (a tuple)."""
-        return self._ops
+        return self._closed()
 
     @property
     def generators(self):
@@ -166,7 +198,7 @@ class PointGroup:
     @property
     def order(self):
         """Number of elements."""
-        return len(self._ops)
+        return len(self._closed())
 
     @property
     def names(self):
@@ -175,8 +207,13 @@ class PointGroup:
 
     @property
     def symbol(self):
-        """Short Hermann-Mauguin symbol (empty when unrecognised)."""
+        """Short Hermann-Mauguin symbol of the geometric class (empty when unrecognised)."""
         return self._names.hm
+
+    @property
+    def setting_symbol(self):
+        """Symbol of the catalog setting the names refer to, e.g. '-4m2' or '112'."""
+        return self._names.setting_symbol
 
     @property
     def schoenflies(self):
@@ -203,27 +240,42 @@ class PointGroup:
         """Words describing the orientation of the symmetry elements."""
         return self._names.setting
 
+    @property
+    def rotation(self):
+        """Q with {g} = {Q g_std Q^T} relative to the catalog setting, or None (see GroupNames)."""
+        return self._names.rotation
+
     def index(self, op):
         """Position of ``op`` in :attr:`operations` (KeyError if absent)."""
+        self._closed()
         return self._index[op.key]
 
     def __contains__(self, op):
+        self._closed()
         return isinstance(op, Operation) and op.key in self._index
+
+    def operation_keys(self):
+        """frozenset of the identity keys of all operations (for set comparisons)."""
+        self._closed()
+        return frozenset(self._index)
 
     # --- structure -------------------------------------------------------------
     @property
     def multiplication_table(self):
         """Cayley table as an int numpy array: ``table[i, j]`` is the index of ops[i] @ ops[j]."""
         if self._table is None:
-            n = len(self._ops)
-            mats = np.array([op._num for op in self._ops])
-            flags = np.array([op.time_reversal for op in self._ops])
+            ops = self._closed()
+            n = len(ops)
+            mats = np.array([op._num for op in ops])
+            flags = np.array([op.time_reversal for op in ops])
             prods = np.einsum("aij,bjk->abik", mats, mats)
+            keys = np.rint(prods.reshape(n, n, 9) * 1e8).astype(np.int64)
             table = np.empty((n, n), dtype=np.int64)
+            index = self._index
             for a in range(n):
                 for b in range(n):
-                    key = tuple(int(v) for v in np.rint(prods[a, b].ravel() * 1e8)) + (int(flags[a] != flags[b]),)
-                    table[a, b] = self._index[key]
+                    key = tuple(int(v) for v in keys[a, b]) + (int(flags[a] != flags[b]),)
+                    table[a, b] = index[key]
             self._table = table
         return self._table.copy()
 
@@ -252,28 +304,36 @@ class PointGroup:
 
     @property
     def is_polar(self):
-        """True when some direction is left fixed by every operation (a pyroelectric class)."""
-        m = sum(op._num for op in self._ops if not op.time_reversal) / max(
-            1, sum(1 for op in self._ops if not op.time_reversal)
-        )
+        """True when some direction is left fixed by every (unprimed) operation (a pyroelectric class)."""
+        ops = [op for op in self._closed() if not op.time_reversal]
+        m = sum(op._num for op in ops) / len(ops)
         return bool(np.linalg.matrix_rank(m, tol=1e-9) > 0)
 
     @property
     def is_enantiomorphic(self):
-        """True when every operation is proper (no inversion, mirror or rotoinversion)."""
-        return all(op.det == 1 for op in self._ops)
+        """True when every operation is proper (no inversion, mirror or rotoinversion).
+
+        These are the 11 chiral classes 1, 2, 222, 4, 422, 3, 32, 6, 622, 23, 432
+        (and I among the icosahedral groups).
+        """
+        return all(op.det == 1 for op in self._closed())
 
     @property
     def is_magnetic(self):
         """True when some operation carries time reversal."""
-        return any(op.time_reversal for op in self._ops)
+        return any(op.time_reversal for op in self._closed())
+
+    @property
+    def is_crystallographic(self):
+        """True when every rotation order is 1, 2, 3, 4 or 6."""
+        return all(op.order in (1, 2, 3, 4, 6) for op in self._closed())
 
     def conjugated(self, rotation, names=None):
         """The group ``Q G Q^T`` for an exact rotation Q (operations re-oriented)."""
-        ops = [op.conjugated(rotation) for op in self._ops]
         gens = [op.conjugated(rotation) for op in self._gens]
-        return PointGroup(ops, gens, names)
+        ops = None if self._ops is None else [op.conjugated(rotation) for op in self._ops]
+        return PointGroup(ops, gens, names, limit=self._limit)
 
     def __repr__(self):
-        label = self._names.hm or "unnamed"
+        label = self._names.setting_symbol or self._names.hm or "unnamed"
         return f"<PointGroup {label} order {self.order}>"

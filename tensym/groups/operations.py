@@ -33,13 +33,17 @@ import numpy as np
 import sympy as sp
 
 from tensym.errors import InvalidOperationError
-from tensym.exact.numbers import exact_matrix, float_key, is_orthogonal, matmul, to_float
+from tensym.exact.matrices import exact_matrix, float_key, is_orthogonal, matmul, to_float
 
-__all__ = ["Operation", "HEXAGONAL_BASIS"]
+__all__ = ["Operation", "HEXAGONAL_BASIS", "ORDER_SEARCH_LIMIT"]
 
 _S3 = sp.sqrt(3)
 #: Columns are the hexagonal lattice vectors a, b, c in Cartesian axes.
 HEXAGONAL_BASIS = sp.ImmutableMatrix([[1, -sp.Rational(1, 2), 0], [0, _S3 / 2, 0], [0, 0, 1]])
+_HEX_INV = sp.ImmutableMatrix(HEXAGONAL_BASIS.inv())
+#: Largest rotation order n recognised by :attr:`Operation.order`; a rotation whose
+#: angle is not 360/n degrees for some n up to this limit counts as of infinite order.
+ORDER_SEARCH_LIMIT = 240
 _BASES = ("cartesian", "hexagonal")
 _TERM = re.compile(r"([+-]?)\s*([0-9/.]*)\s*\*?\s*([xyz])")
 
@@ -169,7 +173,7 @@ class Operation:
             flag = bool(time_reversal)
         w = sp.Matrix([_parse_component(p, text) for p in parts])
         if basis == "hexagonal":
-            w = HEXAGONAL_BASIS * w * HEXAGONAL_BASIS.inv()
+            w = HEXAGONAL_BASIS * w * _HEX_INV
         m = exact_matrix(w)
         if not is_orthogonal(m):
             raise InvalidOperationError(
@@ -239,13 +243,35 @@ class Operation:
 
     @property
     def order(self):
-        """Order n of the spatial part (g^n = 1), or 0 when it is infinite."""
-        p = np.eye(3)
-        for n in range(1, 121):
-            p = self._num @ p
-            if np.allclose(p, np.eye(3), atol=1e-9):
-                return n
-        return 0
+        """Order n of the spatial part (g^n = 1), or 0 when it is infinite.
+
+        "Infinite" means: no n <= ORDER_SEARCH_LIMIT (240) gives g^n = 1 to 1e-9
+        (absolute, on the float image).
+        """
+        r = self.det * self._num
+        c = min(1.0, max(-1.0, (float(np.trace(r)) - 1.0) / 2.0))
+        ang = math.acos(c)
+        if ang < 1e-9:
+            return 1 if self.det == 1 else 2
+        # the proper part has order round(2 pi k / ang) for the smallest k that fits
+        n_proper = 0
+        for k in range(1, ORDER_SEARCH_LIMIT + 1):
+            n = 2 * math.pi * k / ang
+            if abs(n - round(n)) < 1e-7 and round(n) <= ORDER_SEARCH_LIMIT:
+                n_proper = int(round(n))
+                break
+            if n > ORDER_SEARCH_LIMIT + 1:
+                break
+        if n_proper == 0:
+            return 0
+        if self.det == 1:
+            return n_proper
+        # g = -P with P of order n: g^n = (-1)^n P^n, so the order is n for n even, 2n for n odd
+        n = n_proper if n_proper % 2 == 0 else 2 * n_proper
+        p = np.linalg.matrix_power(self._num, n)
+        if not np.allclose(p, np.eye(3), atol=1e-9):  # pragma: no cover - defensive
+            return 0
+        return n
 
     @property
     def axis(self):
@@ -255,21 +281,29 @@ class Operation:
         entries are integers where they can be and oriented with the first non-zero
         component positive.
         """
-        proper = sp.Matrix(self.det * self.matrix)
         if np.allclose(self.det * self._num, np.eye(3), atol=1e-9):
             return None
-        ns = (proper - sp.eye(3)).applyfunc(sp.nsimplify).nullspace(simplify=True)
-        if len(ns) != 1:
-            return None
-        v = [sp.nsimplify(sp.simplify(x)) for x in ns[0]]
-        first = next(x for x in v if x != 0)
-        v = [sp.simplify(x / first) for x in v]
+        p = self.det * sp.Matrix(self.matrix)
+        pn = self.det * self._num
+        if float(np.trace(pn)) > -1 + 1e-9:
+            # not a half turn: the antisymmetric part is 2 sin(t) [axis]_x
+            v = [p[2, 1] - p[1, 2], p[0, 2] - p[2, 0], p[1, 0] - p[0, 1]]
+        else:
+            # half turn: P + 1 = 2 u u^T, take its largest column
+            m = pn + np.eye(3)
+            j = int(np.argmax(np.linalg.norm(m, axis=0)))
+            v = [p[i, j] + (1 if i == j else 0) for i in range(3)]
+        v = [sp.radsimp(sp.expand(x)) for x in v]
+        nums = [float(x) for x in v]
+        k = next(i for i, x in enumerate(nums) if abs(x) > 1e-9)
+        first = v[k]
+        v = [sp.Integer(0) if abs(nums[i]) < 1e-12 else sp.expand(sp.radsimp(x / first)) for i, x in enumerate(v)]
         if all(x.is_Rational for x in v):
             scale = math.lcm(*[int(x.q) for x in v])
             ints = [int(x * scale) for x in v]
             g = math.gcd(*ints)
             v = [sp.Integer(x // g) for x in ints]
-        return tuple(sp.nsimplify(x) for x in v)
+        return tuple(sp.nsimplify(x) if not x.is_Rational else x for x in v)
 
     @property
     def sense(self):
@@ -306,7 +340,8 @@ class Operation:
             return "-1" + prime
         if kind == "mirror":
             return "m" + prime
-        ang = float(sp.N(self.angle))
+        r = self.det * self._num
+        ang = math.acos(min(1.0, max(-1.0, (float(np.trace(r)) - 1.0) / 2.0)))
         n = round(2 * math.pi / ang) if ang > 1e-9 else 0
         exact_n = n > 0 and abs(2 * math.pi / n - ang) < 1e-9
         if not exact_n:
@@ -357,7 +392,7 @@ class Operation:
             raise InvalidOperationError(f"basis {basis!r} is not one of {_BASES}")
         m = sp.Matrix(self.matrix)
         if basis == "hexagonal":
-            m = (HEXAGONAL_BASIS.inv() * m * HEXAGONAL_BASIS).applyfunc(sp.nsimplify)
+            m = (_HEX_INV * m * HEXAGONAL_BASIS).applyfunc(sp.nsimplify)
         parts = []
         for i in range(3):
             terms = []
