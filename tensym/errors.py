@@ -21,6 +21,7 @@ __all__ = [
     "InvalidOptionError",
     "DataError",
     "RankLimitError",
+    "InvalidGroupError",
 ]
 
 
@@ -67,3 +68,7 @@ class DataError(TensymError, ValueError):
 
 class RankLimitError(TensymError, ValueError):
     """A tensor rank beyond the limit tensym supports."""
+
+
+class InvalidGroupError(TensymError, TypeError):
+    """An object given where a point group (or its symbol) is expected."""
