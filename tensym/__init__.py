@@ -17,5 +17,18 @@ __all__ = ["errors"]
 # --- groups (owned by the groups work) -------------------------------------
 # --- representations --------------------------------------------------------
 # --- tensors ------------------------------------------------------------------
+from tensym.tensors import (
+    Property,
+    TensorForm,
+    TensorSpec,
+    from_voigt,
+    get_property,
+    property_names,
+    tensor_form,
+    to_voigt,
+)
+
+__all__ += ["Property", "TensorForm", "TensorSpec", "from_voigt", "get_property", "property_names",
+            "tensor_form", "to_voigt"]
 # --- data -----------------------------------------------------------------------
 # --- output ---------------------------------------------------------------------
