@@ -1,0 +1,229 @@
+"""One entry point for every output format: :func:`render` and :func:`as_record`.
+
+Each result type tensym knows has one renderer per format here.  The result
+types of the layers below are looked up lazily, so that output/ imports
+only what exists.
+
+Formats (closed set, :data:`FORMATS`):
+
+``text``
+    What a person reads at a glance (the result's ``str``).
+``latex``
+    Math-mode LaTeX content (amsmath); ``standalone=True`` gives a document.
+``markdown``
+    Pipe tables and lists for reports and notebooks.
+``json``
+    A JSON document made from :func:`as_record` (indent 2, keys in order).
+
+Examples
+--------
+>>> from tensym.output.dispatch import render
+>>> from tensym.output.table import Table
+>>> t = Table(title="", columns=("a",), rows=(("1",),))
+>>> print(render(t, format="json"))
+{
+  "kind": "table",
+  "title": "",
+  "columns": [
+    "a"
+  ],
+  "rows": [
+    {
+      "a": "1"
+    }
+  ],
+  "notes": []
+}
+"""
+
+import json
+
+from tensym.errors import InvalidOptionError
+from tensym.output.symbols import text_latex
+
+__all__ = ["render", "as_record", "latex_parts", "FORMATS", "register_renderer"]
+
+#: The output formats accepted by :func:`render`.
+FORMATS = ("text", "latex", "markdown", "json")
+
+
+class _Renderer:
+    """The per-format functions of one result type (plain functions of the result)."""
+
+    def __init__(self, text, latex, markdown, record, heading, after=None):
+        self.text = text
+        self.latex = latex
+        self.markdown = markdown
+        self.record = record
+        self.heading = heading
+        self.after = after or (lambda r: "")
+
+
+_REGISTRY = []  # (class, _Renderer), searched in order
+
+
+def register_renderer(cls, *, text, latex, markdown, record, heading, after=None):
+    """Make :func:`render` know a result type.
+
+    Parameters
+    ----------
+    cls : type
+        The result class.
+    text, markdown, record, heading, after : callable
+        Functions of one result returning the text, Markdown, JSON-ready
+        dict, the text-mode LaTeX heading, and text-mode LaTeX to follow the
+        display (optional).
+    latex : callable
+        ``latex(result, standalone=False)`` returning math-mode content or a document.
+
+    Returns
+    -------
+    type
+        ``cls`` (so that it can decorate a class).
+
+    Examples
+    --------
+    >>> class Note:
+    ...     def latex(self):
+    ...         return "x"
+    >>> _ = register_renderer(Note, text=lambda r: "note", latex=lambda r, standalone=False: "x",
+    ...                       markdown=lambda r: "*note*", record=lambda r: {"kind": "note"},
+    ...                       heading=lambda r: "A note")
+    >>> render(Note(), format="markdown")
+    '*note*'
+    """
+    _REGISTRY.insert(0, (cls, _Renderer(text, latex, markdown, record, heading, after)))
+    return cls
+
+
+def _load_builtin():
+    if _load_builtin.done:
+        return
+    _load_builtin.done = True
+    from tensym.output import forms
+    from tensym.output.table import Table
+    from tensym.tensors.form import TensorForm
+
+    _REGISTRY.append((TensorForm, _Renderer(
+        forms.form_text, forms.form_latex, forms.form_markdown, forms.form_record, forms.form_heading_latex)))
+    _REGISTRY.append((Table, _Renderer(
+        Table.text, Table.latex, Table.markdown, Table.record,
+        lambda t: text_latex(t.title), lambda t: "\n\n".join(text_latex(n) for n in t.notes))))
+    from tensym.output import results  # renderers of the reps and data result types that exist
+
+    results.register_all(register_renderer)
+
+
+_load_builtin.done = False
+
+
+def _renderer(result):
+    _load_builtin()
+    for cls, r in _REGISTRY:
+        if isinstance(result, cls):
+            return r
+    known = ", ".join(sorted({c.__name__ for c, _ in _REGISTRY}))
+    raise InvalidOptionError(f"cannot render a {type(result).__name__}; tensym renders: {known}")
+
+
+def _check_format(format):
+    if format not in FORMATS:
+        raise InvalidOptionError(f"format={format!r} is not one of {', '.join(FORMATS)}")
+
+
+def render(result, *, format="text", standalone=False):
+    """A tensym result as text, LaTeX, Markdown or JSON.
+
+    Parameters
+    ----------
+    result : TensorForm, Table, CharacterTable, Decomposition, check report, ...
+        Any result type tensym returns.
+    format : {'text', 'latex', 'markdown', 'json'}
+        Output format (see the module notes).
+    standalone : bool
+        With ``format='latex'``: a complete document instead of math-mode content.
+
+    Returns
+    -------
+    str
+
+    Raises
+    ------
+    InvalidOptionError
+        For a format outside the set, ``standalone`` with another format, or
+        an object tensym does not render.
+
+    Examples
+    --------
+    >>> import tensym
+    >>> from tensym.groups.catalog import catalog_group
+    >>> from tensym.tensors.form import tensor_form
+    >>> f = tensor_form("pyroelectric", catalog_group("mm2"))
+    >>> print(render(f, format="markdown"))
+    **pyroelectric coefficients p_i**, point group mm2 (C2v), setting: 2-fold along z, mirror normals x and y; 1 independent: p3
+    <BLANKLINE>
+    | | 1 |
+    |---|---:|
+    | **1** | 0 |
+    | **2** | 0 |
+    | **3** | p3 |
+    >>> render(f, format="pdf")
+    Traceback (most recent call last):
+    ...
+    tensym.errors.InvalidOptionError: format='pdf' is not one of text, latex, markdown, json
+    """
+    _check_format(format)
+    if standalone and format != "latex":
+        raise InvalidOptionError(f"standalone=True needs format='latex', got format={format!r}")
+    r = _renderer(result)
+    if format == "text":
+        return r.text(result)
+    if format == "latex":
+        return r.latex(result, standalone=standalone)
+    if format == "markdown":
+        return r.markdown(result)
+    return json.dumps(r.record(result), indent=2, ensure_ascii=False)
+
+
+def as_record(result):
+    """A JSON-ready dict of a tensym result (strings, numbers, lists, dicts).
+
+    Exact values are written as ``sympy.sstr`` strings, which ``sympy.sympify``
+    reads back; numbers from numeric checks as floats.
+
+    Parameters
+    ----------
+    result : any tensym result type (see :func:`render`)
+
+    Returns
+    -------
+    dict
+        A new dict on every call, with a ``'kind'`` key naming the result type.
+
+    Raises
+    ------
+    InvalidOptionError
+        For an object tensym does not render.
+
+    Examples
+    --------
+    >>> from tensym.groups.catalog import catalog_group
+    >>> from tensym.tensors.form import tensor_form
+    >>> rec = as_record(tensor_form("elastic_stiffness", catalog_group("6mm")))
+    >>> rec["kind"], rec["n_independent"], rec["voigt"][5][5]
+    ('tensor_form', 5, 'c11/2 - c12/2')
+    """
+    return _renderer(result).record(result)
+
+
+def latex_parts(result):
+    """(heading, math-mode fragment, text after) of a result, for documents.
+
+    Examples
+    --------
+    >>> from tensym.output.table import Table
+    >>> latex_parts(Table(title="t", columns=("a",), rows=(("1",),), notes=("n",)))[2]
+    'n'
+    """
+    r = _renderer(result)
+    return r.heading(result), r.latex(result), r.after(result)

@@ -1,0 +1,92 @@
+"""Whole LaTeX documents made of tensym results.
+
+Every result's ``latex()`` gives math-mode content (like ``sympy.latex``);
+:func:`latex_document` puts each one, under a text heading, in a display of
+an ``article`` document that needs only amsmath (and geometry for margins),
+so that ``pdflatex`` compiles it as it is.
+
+Examples
+--------
+>>> from tensym.output.document import latex_document
+>>> from tensym.output.table import Table
+>>> doc = latex_document([Table(title="t", columns=("a",), rows=(("1",),))], title="Notes")
+>>> doc.splitlines()[0], "\\\\section*{Notes}" in doc, doc.rstrip().endswith("\\\\end{document}")
+('\\\\documentclass[11pt]{article}', True, True)
+"""
+
+from tensym.errors import InvalidOptionError
+from tensym.output.symbols import text_latex
+
+__all__ = ["latex_document", "LATEX_PREAMBLE", "LATEX_END"]
+
+LATEX_PREAMBLE = (
+    "\\documentclass[11pt]{article}\n"
+    "\\usepackage{amsmath}\n"
+    "\\usepackage[margin=2cm]{geometry}\n"
+    "\\setcounter{MaxMatrixCols}{20}\n"
+    "\\begin{document}\n"
+)
+LATEX_END = "\\end{document}\n"
+
+
+def _part(result):
+    """(text-mode heading, math-mode fragment, text after) of a result; (paragraph, None, '') for a string."""
+    if isinstance(result, str):
+        return text_latex(result), None, ""
+    from tensym.output.dispatch import latex_parts
+
+    return latex_parts(result)
+
+
+def latex_document(results, *, title=None):
+    """A complete LaTeX document (amsmath) showing one or more results.
+
+    Parameters
+    ----------
+    results : sequence
+        Results with a ``latex()`` method (tensor forms, tables, character
+        tables, decompositions, check reports) and plain strings, which become
+        paragraphs of text (LaTeX special characters escaped).
+    title : str, optional
+        A heading at the top (``\\section*``).
+
+    Returns
+    -------
+    str
+        The document, ending with ``\\end{document}`` and a newline.
+
+    Raises
+    ------
+    InvalidOptionError
+        If ``results`` is empty or an item has no ``latex()`` method.
+
+    Examples
+    --------
+    >>> import tensym
+    >>> from tensym.groups.catalog import catalog_group
+    >>> from tensym.tensors.form import tensor_form
+    >>> doc = latex_document([tensor_form("pyroelectric", catalog_group("mm2")), "Only p3 survives."])
+    >>> "\\\\begin{pmatrix}" in doc and "Only p3 survives." in doc
+    True
+    """
+    if isinstance(results, str) or not hasattr(results, "__iter__"):
+        results = [results]
+    results = list(results)
+    if not results:
+        raise InvalidOptionError("latex_document needs at least one result or paragraph")
+    body = []
+    if title:
+        body.append(f"\\section*{{{text_latex(title)}}}")
+    for r in results:
+        if not isinstance(r, str) and not callable(getattr(r, "latex", None)):
+            raise InvalidOptionError(
+                f"cannot put a {type(r).__name__} in a LaTeX document: it has no latex() method; "
+                "accepted: tensym results and strings"
+            )
+        head, frag, after = _part(r)
+        if frag is None:
+            body.append(head)
+        else:
+            block = ("\\noindent " + head + "\n" if head else "") + "\\[\n" + frag + "\n\\]"
+            body.append(block + ("\n" + after if after else ""))
+    return LATEX_PREAMBLE + "\n\n".join(body) + "\n" + LATEX_END
