@@ -32,3 +32,6 @@ __all__ += ["Property", "TensorForm", "TensorSpec", "from_voigt", "get_property"
             "tensor_form", "to_voigt"]
 # --- data -----------------------------------------------------------------------
 # --- output ---------------------------------------------------------------------
+from tensym.output import as_record, latex_document, render
+
+__all__ += ["as_record", "latex_document", "render"]
