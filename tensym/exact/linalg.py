@@ -20,7 +20,7 @@ from fractions import Fraction
 
 import sympy as sp
 
-__all__ = ["QuadNumber", "rref_sparse"]
+__all__ = ["QuadNumber", "rref_sparse", "rref_integer"]
 
 
 class QuadNumber:
@@ -152,4 +152,78 @@ def rref_sparse(rows, priority):
     out = {}
     for p, r in pivots.items():
         out[p] = {c: -v for c, v in r.items() if c != p}
+    return out
+
+
+def rref_integer(rows, priority):
+    """``rref_sparse`` for rows of Python ints, fraction-free (faster); same result.
+
+    Each stored pivot row keeps integer entries with its pivot coefficient, and
+    is divided by the gcd of its entries after every update.  Returns
+    ``{pivot: {free column: Fraction}}`` like :func:`rref_sparse`.
+
+    Examples
+    --------
+    >>> rref_integer([{0: 2, 1: -2, 2: -4}], priority=lambda c: c)
+    {2: {0: Fraction(1, 2), 1: Fraction(-1, 2)}}
+    """
+    from math import gcd
+
+    def _norm(r):
+        g = 0
+        for v in r.values():
+            g = gcd(g, v)
+        if g > 1:
+            for c in r:
+                r[c] //= g
+        return r
+
+    pivots = {}
+    for row in rows:
+        r = {c: int(v) for c, v in row.items() if v}
+        for p in [c for c in r if c in pivots]:
+            a = r.pop(p, 0)
+            if not a:
+                continue
+            prow = pivots[p]
+            b = prow[p]
+            # r := b * r - a * prow (pivot column cancels)
+            for c in r:
+                r[c] *= b
+            for c, v in prow.items():
+                if c == p:
+                    continue
+                nv = r.get(c, 0) - a * v
+                if nv:
+                    r[c] = nv
+                else:
+                    r.pop(c, None)
+        r = {c: v for c, v in r.items() if v}
+        if not r:
+            continue
+        p = max(r, key=priority)
+        if r[p] < 0:
+            r = {c: -v for c, v in r.items()}
+        r = _norm(r)
+        b = r[p]
+        for q, qrow in pivots.items():
+            a = qrow.pop(p, 0)
+            if not a:
+                continue
+            for c in qrow:
+                qrow[c] *= b
+            for c, v in r.items():
+                if c == p:
+                    continue
+                nv = qrow.get(c, 0) - a * v
+                if nv:
+                    qrow[c] = nv
+                else:
+                    qrow.pop(c, None)
+            _norm(qrow)
+        pivots[p] = r
+    out = {}
+    for p, r in pivots.items():
+        b = r[p]
+        out[p] = {c: Fraction(-v, b) for c, v in r.items() if c != p}
     return out

@@ -107,7 +107,7 @@ def get_property(name):
     >>> get_property("elastic_stifness")
     Traceback (most recent call last):
     ...
-    tensym.errors.UnknownPropertyError: unknown property 'elastic_stifness'; nearest: elastic_stiffness, elastic_compliance
+    tensym.errors.UnknownPropertyError: unknown property 'elastic_stifness'; nearest: elastic_stiffness, ...
     """
     if isinstance(name, Property):
         return name

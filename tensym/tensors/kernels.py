@@ -48,11 +48,21 @@ __all__ = [
 ]
 
 
+_FORM_CACHE = {}
+
+
 def monomial_form(matrix):
     """(perm, signs) with R[perm[i], i] = signs[i] when R is a signed permutation, else None.
 
-    R maps basis vector e_i to signs[i] * e_perm[i].
+    R maps basis vector e_i to signs[i] * e_perm[i].  Results are cached per matrix.
     """
+    key = ("m", tuple(sp.ImmutableMatrix(matrix)))
+    if key not in _FORM_CACHE:
+        _FORM_CACHE[key] = _monomial_form(matrix)
+    return _FORM_CACHE[key]
+
+
+def _monomial_form(matrix):
     m = sp.Matrix(matrix)
     perm, signs = [None] * 3, [0] * 3
     for i in range(3):
@@ -81,8 +91,16 @@ def monomial_action(orbits, perm, signs):
 def quadratic_form(matrix):
     """(d, D, A, B) with R = (A + sqrt(d) B) / D for integer arrays A, B, or None.
 
-    d is 1 for a rational matrix (then B is zero).
+    d is 1 for a rational matrix (then B is zero).  Results are cached per matrix
+    (the arrays handed out are read-only).
     """
+    key = ("q", tuple(sp.ImmutableMatrix(matrix)))
+    if key not in _FORM_CACHE:
+        _FORM_CACHE[key] = _quadratic_form(matrix)
+    return _FORM_CACHE[key]
+
+
+def _quadratic_form(matrix):
     entries = list(sp.Matrix(matrix))
     d = quadratic_field(entries)
     if d is None:
@@ -93,6 +111,8 @@ def quadratic_form(matrix):
         den = math.lcm(den, a.denominator, b.denominator)
     A = np.array([int(a * den) for a, _ in parts], dtype=np.int64).reshape(3, 3)
     B = np.array([int(b * den) for _, b in parts], dtype=np.int64).reshape(3, 3)
+    A.flags.writeable = False
+    B.flags.writeable = False
     return d, den, A, B
 
 

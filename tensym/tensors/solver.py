@@ -37,7 +37,7 @@ from fractions import Fraction
 import numpy as np
 import sympy as sp
 
-from tensym.exact.linalg import QuadNumber, rref_sparse
+from tensym.exact.linalg import QuadNumber, rref_integer, rref_sparse
 from tensym.tensors.kernels import (
     lie_action,
     monomial_action,
@@ -70,12 +70,12 @@ class Solution:
 class _UnionFind:
     def __init__(self, n, key):
         self.parent = list(range(n))
-        self.ratio = [Fraction(1)] * n  # v_x = ratio[x] * v_parent[x]
+        self.ratio = [1.0] * n  # v_x = ratio[x] * v_parent[x]; signed powers of two, exact in float
         self.zero = [False] * n
         self.key = key
 
     def find(self, x):
-        r = Fraction(1)
+        r = 1.0
         path = []
         while self.parent[x] != x:
             path.append(x)
@@ -108,8 +108,21 @@ class _UnionFind:
             self.zero[rb] = self.zero[ra] or self.zero[rb]
 
 
+_STABLE = {}
+
+
 def _galois_stable(group, d):
-    """True when conjugating sqrt(d) -> -sqrt(d) maps the group's operations onto themselves."""
+    """True when conjugating sqrt(d) -> -sqrt(d) maps the group's operations onto themselves.
+
+    Cached per (generators, d).
+    """
+    key = (tuple(g.key for g in group.generators), d)
+    if key not in _STABLE:
+        _STABLE[key] = _galois_stable_uncached(group, d)
+    return _STABLE[key]
+
+
+def _galois_stable_uncached(group, d):
     if getattr(group, "is_continuous", False):
         return False
     ops = group.operations
@@ -126,6 +139,131 @@ def _galois_stable(group, d):
         if key not in keys:
             return False
     return True
+
+
+def _class_projection(n, roots, ratio, zero):
+    """float64 (n, m) matrix mapping class unknowns to orbit unknowns, and the class list.
+
+    Ratios are signed powers of two (Voigt factors), so float64 holds them exactly.
+    """
+    classes = sorted({r for r in roots if r not in zero})
+    col = {r: i for i, r in enumerate(classes)}
+    P = np.zeros((n, len(classes)))
+    for o in range(n):
+        if roots[o] not in zero:
+            P[o, col[roots[o]]] = float(ratio[o])
+    return P, classes
+
+
+_DYADIC = 2.0**20
+
+
+def _rational_rows(spec, group, f, quads, roots, ratio, zero):
+    """Integer constraint rows on the union-find classes (rational invariant subspace).
+
+    Every value is a dyadic rational below 2**53 in size, so the float64
+    products are exact; this is checked before the rows are rounded.
+    """
+    orb = spec.orbits
+    n = len(orb.reps)
+    F = np.array([float(x) for x in f])
+    P, classes = _class_projection(n, roots, ratio, zero)
+    if not classes:
+        return []
+    blocks = []
+    for L in group.lie_generators:
+        blocks.append(lie_action(orb, L).astype(np.float64) * F)
+    for q, par in quads:
+        den = q[1]
+        A, B = quadratic_action(orb, q)
+        scale = float(den) ** spec.rank
+        blocks.append((par * A.astype(np.float64) - scale * np.eye(n)) * F)
+        if q[0] != 1:
+            blocks.append(par * B.astype(np.float64) * F)
+    if not blocks:
+        return []
+    C = np.vstack(blocks) @ P * _DYADIC
+    R = np.rint(C)
+    if not np.array_equal(R, C) or np.abs(R).max(initial=0) >= 2.0**52:
+        raise ArithmeticError("constraint rows are not exact in float64; use the field path")
+    R = R.astype(np.int64)
+    R = R[np.any(R != 0, axis=1)]
+    if len(R) == 0:
+        return []
+    g = np.gcd.reduce(R, axis=1)
+    R = R // g[:, None]
+    lead = R[np.arange(len(R)), np.argmax(R != 0, axis=1)]
+    R = R * np.sign(lead)[:, None]
+    R = np.unique(R, axis=0)
+    rows = []
+    for r in R:
+        nz = np.nonzero(r)[0]
+        rows.append({classes[j]: int(r[j]) for j in nz})
+    return rows
+
+
+def _field_rows(spec, group, f, quads, d, roots, ratio, zero):
+    """Constraint rows in Q(sqrt(d)) (QuadNumber entries) on the union-find classes."""
+    orb = spec.orbits
+    n = len(orb.reps)
+    rows = []
+    for L in group.lie_generators:
+        N = lie_action(orb, L)
+        for i in range(n):
+            row = {int(j): QuadNumber(int(N[i, j]) * f[j], 0, d) for j in np.nonzero(N[i])[0]}
+            rows.append(row)
+    for q, par in quads:
+        den = q[1]
+        A, B = quadratic_action(orb, q)
+        scale = den**spec.rank
+        for i in range(n):
+            nz = set(np.nonzero(A[i])[0]) | set(np.nonzero(B[i])[0]) | {i}
+            rows.append({int(j): QuadNumber(Fraction(int(A[i, j]) * par - (scale if i == j else 0), scale) * f[j],
+                                            Fraction(int(B[i, j]) * par, scale) * f[j], d) for j in nz})
+    return [_to_classes(r, roots, ratio, zero) for r in rows]
+
+
+def _general_rows(spec, group, f, quads, general, roots, ratio, zero):
+    """Constraint rows with sympy entries (any algebraic field; slow path)."""
+    orb = spec.orbits
+    n = len(orb.reps)
+    rows = []
+    for L in group.lie_generators:
+        N = lie_action(orb, L)
+        for i in range(n):
+            rows.append({int(j): sp.Integer(int(N[i, j])) * _q(f[j]) for j in np.nonzero(N[i])[0]})
+    mats = [(sympy_action(orb, g.matrix), par) for g, par in general]
+    for q, par in quads:
+        A, B = quadratic_action(orb, q)
+        scale = sp.Integer(q[1]) ** spec.rank
+        mats.append((sp.Matrix(n, n, lambda i, j: (int(A[i, j]) + int(B[i, j]) * sp.sqrt(q[0])) / scale), par))
+    for M, par in mats:
+        for i in range(n):
+            row = {}
+            for j in range(n):
+                v = sp.nsimplify(M[i, j] * par - (1 if i == j else 0))
+                if v != 0:
+                    row[j] = v * _q(f[j])
+            if row:
+                rows.append(row)
+    return [_to_classes(r, roots, ratio, zero) for r in rows]
+
+
+def _q(x):
+    return sp.Rational(x.numerator, x.denominator)
+
+
+def _to_classes(row, roots, ratio, zero):
+    out = {}
+    for j, v in row.items():
+        r = roots[j]
+        if r in zero:
+            continue
+        rv = ratio[j]
+        if isinstance(v, sp.Basic):
+            rv = _q(rv)
+        out[r] = out.get(r, 0) + v * rv
+    return out
 
 
 def solve_invariants(spec, group, factors=None, priority=None):
@@ -149,6 +287,10 @@ def solve_invariants(spec, group, factors=None, priority=None):
     n = len(orb.reps)
     f = [Fraction(1)] * n if factors is None else [Fraction(x) for x in factors]
     keys = list(orb.reps) if priority is None else list(priority)
+    for x in f:
+        if x == 0 or (abs(x.numerator) & (abs(x.numerator) - 1)) or (x.denominator & (x.denominator - 1)):
+            raise ValueError(f"Voigt factors must be signed powers of two, got {x}")
+    ff = [float(x) for x in f]
     uf = _UnionFind(n, lambda o: keys[o])
     dense = []
     for g in group.generators:
@@ -157,93 +299,41 @@ def solve_invariants(spec, group, factors=None, priority=None):
         if mono is not None:
             for o, (o2, s) in enumerate(monomial_action(orb, *mono)):
                 # t_{o2} = s * par * t_o  ->  v_{o2} = s * par * f_o / f_{o2} * v_o
-                uf.relate(o2, o, Fraction(s * par) * f[o] / f[o2])
+                uf.relate(o2, o, s * par * ff[o] / ff[o2])
         else:
             dense.append((g, par))
 
-    rows = []  # list of (kind, data)
-    for L in group.lie_generators:
-        N = lie_action(orb, L)
-        for i in range(n):
-            nz = np.nonzero(N[i])[0]
-            if len(nz):
-                rows.append({int(j): Fraction(int(N[i, j])) * f[j] for j in nz})
-    field_d = 1
-    general = []
-    for g, par in dense:
-        q = quadratic_form(g.matrix)
-        if q is None:
-            general.append((g, par))
-            continue
-        d, den, _, _ = q
-        A, B = quadratic_action(orb, q)
-        scale = den**spec.rank
-        if d != 1:
-            if field_d not in (1, d):
-                general.append((g, par))
-                continue
-            field_d = d
-        for i in range(n):
-            nz = set(np.nonzero(A[i])[0]) | set(np.nonzero(B[i])[0]) | {i}
-            row = {}
-            for j in nz:
-                a = Fraction(int(A[i, j]) * par - (scale if i == j else 0), scale) * f[j]
-                b = Fraction(int(B[i, j]) * par, scale) * f[j]
-                row[int(j)] = (a, b)
-            rows.append(row)
-
-    # express rows in union-find classes
     roots, ratio = [], []
     for o in range(n):
         r, q = uf.find(o)
         roots.append(r)
-        ratio.append(q)
+        ratio.append(Fraction(q))
     zero = {r for r in set(roots) if uf.zero[r]}
 
-    def to_classes(row, conv):
-        out = {}
-        for j, v in row.items():
-            r = roots[j]
-            if r in zero:
-                continue
-            out[r] = out.get(r, 0) + conv(v) * ratio[j]
-        return out
-
-    work = []
-    use_field = field_d != 1 and not _galois_stable(group, field_d)
+    field_d = 1
+    quads, general = [], []
+    for g, par in dense:
+        q = quadratic_form(g.matrix)
+        if q is None or (q[0] != 1 and field_d not in (1, q[0])):
+            general.append((g, par))
+            continue
+        if q[0] != 1:
+            field_d = q[0]
+        quads.append((q, par))
     if general:
-        use_field = False
-    for row in rows:
-        sample = next(iter(row.values()), None)
-        if isinstance(sample, tuple):
-            if general:
-                work.append(to_classes(row, lambda v: sp.Rational(v[0].numerator, v[0].denominator)
-                                       + sp.Rational(v[1].numerator, v[1].denominator) * sp.sqrt(field_d)))
-            elif use_field:
-                work.append(to_classes(row, lambda v: QuadNumber(v[0], v[1], field_d)))
-            else:
-                work.append(to_classes(row, lambda v: v[0]))
-                if field_d != 1:
-                    work.append(to_classes(row, lambda v: v[1]))
-        else:
-            if general:
-                work.append(to_classes(row, lambda v: sp.Rational(v.numerator, v.denominator)))
-            elif use_field:
-                work.append(to_classes(row, lambda v: QuadNumber(v, 0, field_d)))
-            else:
-                work.append(to_classes(row, lambda v: v))
-    for g, par in general:
-        M = sympy_action(orb, g.matrix)
-        for i in range(n):
-            row = {}
-            for j in range(n):
-                v = M[i, j] * par - (1 if i == j else 0)
-                if v != 0:
-                    row[j] = sp.nsimplify(v) * sp.Rational(f[j].numerator, f[j].denominator)
-            if row:
-                work.append(to_classes(row, lambda v: v))
+        work = _general_rows(spec, group, f, quads, general, roots, ratio, zero)
+    elif field_d != 1 and not _galois_stable(group, field_d):
+        work = _field_rows(spec, group, f, quads, field_d, roots, ratio, zero)
+    else:
+        try:
+            work = _rational_rows(spec, group, f, quads, roots, ratio, zero)
+        except ArithmeticError:
+            work = _field_rows(spec, group, f, quads, max(field_d, 2) if field_d != 1 else 2, roots, ratio, zero)
 
-    piv = rref_sparse(work, priority=lambda c: keys[c])
+    if all(isinstance(v, int) for row in work for v in row.values()):
+        piv = rref_integer(work, priority=lambda c: keys[c])
+    else:
+        piv = rref_sparse(work, priority=lambda c: keys[c])
     live = sorted({r for r in roots if r not in zero and r not in piv}, key=lambda c: keys[c])
     pos = {r: i for i, r in enumerate(live)}
 
