@@ -15,6 +15,25 @@ from tensym import errors
 __all__ = ["errors"]
 
 # --- groups (owned by the groups work) -------------------------------------
+from tensym.groups import (
+    ContinuousGroup,
+    GroupNames,
+    Operation,
+    PointGroup,
+    as_group,
+    group_from_generators,
+    point_group,
+    point_groups,
+    recognise,
+    reorient,
+    rotation_about,
+    rotation_from_axes,
+    settings_table,
+)
+
+__all__ += ["ContinuousGroup", "GroupNames", "Operation", "PointGroup", "as_group", "group_from_generators",
+            "point_group", "point_groups", "recognise", "reorient", "rotation_about", "rotation_from_axes",
+            "settings_table"]
 # --- representations --------------------------------------------------------
 # --- tensors ------------------------------------------------------------------
 from tensym.tensors import (

@@ -15,9 +15,11 @@ Examples
 """
 
 from dataclasses import dataclass
+import math
 
 import numpy as np
 import sympy as sp
+from sympy.external.gmpy import MPQ
 
 from tensym.errors import GroupClosureError, InvalidOperationError
 from tensym.groups.operations import ORDER_SEARCH_LIMIT, Operation
@@ -68,6 +70,114 @@ class GroupNames:
     setting_symbol: str = ""
 
 
+# --- exact products in a multi-quadratic field --------------------------------------
+# An entry a_1 sqrt(s_1) + ... (rational a_i, square-free integers s_i) is a dict
+# {s_i: a_i}; such numbers are closed under products (sqrt(s) sqrt(t) = g sqrt(st/g^2),
+# g = gcd(s, t)), which covers every catalog setting (sqrt(3), sqrt(5)) and their
+# re-orientations by rotations with entries like sqrt(2)/2 or sqrt(6)/3.  Entries of
+# any other form fall back to sympy products.
+
+
+def _mq_entry(x):
+    out = {}
+    for term in sp.Add.make_args(x):
+        if term.is_Rational:
+            out[1] = out.get(1, 0) + MPQ(int(term.p), int(term.q))
+            continue
+        coeff, rest = term.as_coeff_Mul()
+        if not (coeff.is_Rational and rest.is_Pow and rest.exp == sp.S.Half and rest.base.is_Integer
+                and rest.base > 1):
+            return None
+        b = int(rest.base)
+        out[b] = out.get(b, 0) + MPQ(int(coeff.p), int(coeff.q))
+    return {k: v for k, v in out.items() if v}
+
+
+def _mq_matrix(m):
+    rows = []
+    for i in range(3):
+        row = []
+        for j in range(3):
+            e = _mq_entry(m[i, j])
+            if e is None:
+                return None
+            row.append(e)
+        rows.append(row)
+    return rows
+
+
+def _mq_mul(a, b):
+    out = {}
+    for s, x in a.items():
+        for t, y in b.items():
+            g = math.gcd(s, t)
+            r = (s // g) * (t // g)
+            out[r] = out.get(r, 0) + x * y * g
+    return out
+
+
+def _mq_matmul(a, b):
+    res = []
+    for i in range(3):
+        row = []
+        for j in range(3):
+            acc = {}
+            for k in range(3):
+                for r, v in _mq_mul(a[i][k], b[k][j]).items():
+                    acc[r] = acc.get(r, 0) + v
+            row.append({r: v for r, v in acc.items() if v})
+        res.append(row)
+    return res
+
+
+_SQRT = {}
+
+
+def _mq_sympy(rows, num):
+    vals = []
+    for row in rows:
+        for e in row:
+            terms = []
+            for r in sorted(e):
+                c = e[r]
+                q = sp.Rational(int(c.numerator), int(c.denominator))
+                if r == 1:
+                    terms.append(q)
+                else:
+                    root = _SQRT.get(r)
+                    if root is None:
+                        root = _SQRT[r] = sp.sqrt(r)
+                    terms.append(q * root)
+            vals.append(sp.Add(*terms) if terms else sp.Integer(0))
+    return sp.ImmutableMatrix(3, 3, vals)
+
+
+def _trusted(matrix, flag, num):
+    """An Operation from an exact matrix and its known float image (no checks)."""
+    op = object.__new__(Operation)
+    object.__setattr__(op, "matrix", matrix)
+    object.__setattr__(op, "time_reversal", bool(flag))
+    object.__setattr__(op, "_num", np.array(num, dtype=np.float64))
+    return op
+
+
+def _conjugate_all(ops, rotation):
+    """``[Q g Q^T for g in ops]`` with the multi-quadratic kernel where the entries allow."""
+    q = sp.ImmutableMatrix(rotation)
+    qm = _mq_matrix(q)
+    qt = _mq_matrix(q.T) if qm is not None else None
+    qn = np.array([[float(x) for x in row] for row in q.tolist()], dtype=np.float64)
+    out = []
+    for op in ops:
+        m = _mq_matrix(op.matrix) if qm is not None else None
+        if m is None:
+            out.append(op.conjugated(q))
+            continue
+        num = qn @ op._num @ qn.T
+        out.append(_trusted(_mq_sympy(_mq_matmul(_mq_matmul(qm, m), qt), num), op.time_reversal, num))
+    return out
+
+
 def _close(generators, limit):
     ident = Operation.identity()
     ops = [ident]
@@ -76,6 +186,9 @@ def _close(generators, limit):
     nums = [ident._num]
     flags = [False]
     gen_num = [(g._num, g.time_reversal) for g in generators]
+    gen_mq = [_mq_matrix(g.matrix) for g in generators]
+    fast = all(m is not None for m in gen_mq)
+    mqs = [_mq_matrix(ident.matrix)] if fast else None
     while frontier:
         new_frontier = []
         for i in frontier:
@@ -90,7 +203,12 @@ def _close(generators, limit):
                         f"the generators do not close to a finite group of order <= {limit}; "
                         "check that every rotation angle is 360/n degrees and the axes are compatible"
                     )
-                op = generators[gi] @ ops[i]
+                if fast:
+                    rows = _mq_matmul(gen_mq[gi], mqs[i])
+                    mqs.append(rows)
+                    op = _trusted(_mq_sympy(rows, prod), flag, prod)
+                else:
+                    op = generators[gi] @ ops[i]
                 index[key] = len(ops)
                 ops.append(op)
                 nums.append(prod)
@@ -329,9 +447,12 @@ class PointGroup:
         return all(op.order in (1, 2, 3, 4, 6) for op in self._closed())
 
     def conjugated(self, rotation, names=None):
-        """The group ``Q G Q^T`` for an exact rotation Q (operations re-oriented)."""
-        gens = [op.conjugated(rotation) for op in self._gens]
-        ops = None if self._ops is None else [op.conjugated(rotation) for op in self._ops]
+        """The group ``Q G Q^T`` for an exact rotation Q (operations re-oriented).
+
+        Q is trusted to be exact and orthogonal (``tensym.reorient`` checks it).
+        """
+        gens = _conjugate_all(self._gens, rotation)
+        ops = None if self._ops is None else _conjugate_all(self._ops, rotation)
         return PointGroup(ops, gens, names, limit=self._limit)
 
     def __repr__(self):

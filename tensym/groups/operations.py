@@ -73,6 +73,24 @@ def _parse_component(text, where):
     return row
 
 
+def proper_order(p):
+    """Order of a proper rotation given as a float (3, 3) array; 0 when above ORDER_SEARCH_LIMIT.
+
+    The angle t = acos((tr p - 1)/2) is 2 pi k/n with k, n coprime; n is the order.
+    """
+    if np.allclose(p, np.eye(3), atol=1e-9):
+        return 1
+    c = min(1.0, max(-1.0, (float(np.trace(p)) - 1.0) / 2.0))
+    ang = math.acos(c)
+    for k in range(1, ORDER_SEARCH_LIMIT + 1):
+        n = 2 * math.pi * k / ang
+        if n > ORDER_SEARCH_LIMIT + 0.5:
+            break
+        if abs(n - round(n)) < 1e-7:
+            return int(round(n))
+    return 0
+
+
 @dataclass(frozen=True, eq=False)
 class Operation:
     """An exact point symmetry operation.
@@ -248,20 +266,7 @@ class Operation:
         "Infinite" means: no n <= ORDER_SEARCH_LIMIT (240) gives g^n = 1 to 1e-9
         (absolute, on the float image).
         """
-        r = self.det * self._num
-        c = min(1.0, max(-1.0, (float(np.trace(r)) - 1.0) / 2.0))
-        ang = math.acos(c)
-        if ang < 1e-9:
-            return 1 if self.det == 1 else 2
-        # the proper part has order round(2 pi k / ang) for the smallest k that fits
-        n_proper = 0
-        for k in range(1, ORDER_SEARCH_LIMIT + 1):
-            n = 2 * math.pi * k / ang
-            if abs(n - round(n)) < 1e-7 and round(n) <= ORDER_SEARCH_LIMIT:
-                n_proper = int(round(n))
-                break
-            if n > ORDER_SEARCH_LIMIT + 1:
-                break
+        n_proper = proper_order(self.det * self._num)
         if n_proper == 0:
             return 0
         if self.det == 1:
