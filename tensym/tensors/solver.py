@@ -266,6 +266,43 @@ def _to_classes(row, roots, ratio, zero):
     return out
 
 
+def _rescale_proportional(live, coeffs, orb, keys):
+    """Re-pick the constant of a proportional family so that its members are integer multiples.
+
+    A family is the set of components that are multiples of one free constant
+    alone (d16 = -2 d22, d21 = -d22 in 3m).  When some member has a smaller
+    coefficient than the free constant itself, that member becomes the constant
+    (handbook choice: the others are then whole multiples); among equal
+    coefficients the member with fewer distinct Cartesian indices is preferred
+    (d22 = d_222 before d21 = d_211), then the lower label.
+    """
+    families = {}
+    for o, terms in enumerate(coeffs):
+        if len(terms) == 1:
+            families.setdefault(terms[0][0], []).append((o, terms[0][1]))
+    changes = {}
+    for i, members in families.items():
+        best = min(members, key=lambda oc: (abs(oc[1]), len(set(orb.reps[oc[0]])), keys[oc[0]]))
+        if abs(best[1]) < 1:
+            changes[i] = best
+    if not changes:
+        return live, coeffs
+    live = list(live)
+    for i, (o, c) in changes.items():
+        live[i] = o
+    new = []
+    for terms in coeffs:
+        out = []
+        for i, c in terms:
+            out.append((i, c / changes[i][1]) if i in changes else (i, c))
+        new.append(tuple(out))
+    # keep the free constants in priority order
+    order = sorted(range(len(live)), key=lambda i: keys[live[i]])
+    pos = {old: k for k, old in enumerate(order)}
+    new = [tuple(sorted(((pos[i], c) for i, c in terms), key=lambda t: t[0])) for terms in new]
+    return [live[i] for i in order], new
+
+
 def solve_invariants(spec, group, factors=None, priority=None):
     """Solve for the invariant tensors of ``spec`` under ``group``.
 
@@ -356,4 +393,5 @@ def solve_invariants(spec, group, factors=None, priority=None):
             coeffs.append(tuple(t for t in terms if t[1] != 0))
         else:
             coeffs.append(((pos[r], q),))
+    live, coeffs = _rescale_proportional(live, coeffs, orb, keys)
     return Solution(free=tuple(live), coeffs=tuple(coeffs))
