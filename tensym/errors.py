@@ -72,3 +72,18 @@ class RankLimitError(TensymError, ValueError):
 
 class InvalidGroupError(TensymError, TypeError):
     """An object given where a point group (or its symbol) is expected."""
+
+
+class UnknownIrrepError(TensymError, KeyError):
+    """An irrep label that the group does not have (the message lists the nearest labels)."""
+
+    def __str__(self):
+        return str(self.args[0]) if self.args else ""
+
+
+class RepresentationError(TensymError, ValueError):
+    """An object that does not belong to the space or group it is used with."""
+
+
+class InvalidArgumentError(TensymError, TypeError):
+    """An argument of the wrong type (the message says what is accepted)."""

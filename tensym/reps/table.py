@@ -1,0 +1,375 @@
+"""Character tables of finite point groups: the result types and their construction.
+
+A :class:`CharacterTable` is computed from the group alone (see
+:mod:`tensym.reps.characters` for the exact method and :mod:`tensym.reps.labels`
+for the naming conventions) and cached per group setting.  Irrep matrices are
+built on demand, exactly, inside spaces of harmonic polynomials (see
+:func:`irrep_matrices`).
+
+Examples
+--------
+>>> from tensym.groups.finite import PointGroup
+>>> from tensym.groups.operations import Operation
+>>> g = PointGroup.from_generators([Operation.from_triplet("-y,x,z"), Operation.from_triplet("x,-y,z")])
+>>> t = finite_table(g)
+>>> [i.label for i in t.irreps]
+['A1', 'A2', 'B1', 'B2', 'E']
+>>> [c.name for c in t.classes]
+['E', '2C4', 'C2', '2σv', '2σd']
+"""
+
+from dataclasses import dataclass, field
+import difflib
+
+import sympy as sp
+
+from tensym.errors import UnknownIrrepError, RepresentationError
+from tensym.reps.characters import class_data, exact_characters
+from tensym.reps.cyclotomic import Cyclotomic
+from tensym.reps.labels import label_irreps, name_classes
+
+__all__ = ["ConjugacyClass", "Irrep", "CharacterTable", "finite_table", "group_key"]
+
+
+@dataclass(frozen=True)
+class ConjugacyClass:
+    """One conjugacy class of a finite group.
+
+    Attributes
+    ----------
+    name : str
+        Conventional name with the class size in front, e.g. ``'2C3'``, ``'3σv'``.
+    latex : str
+        The name in LaTeX (``'2C_{3}'``, ``'3\\\\sigma_{v}'``).
+    size : int
+        Number of elements.
+    representative : Operation
+        One element of the class (the first in the group's operation order).
+    indices : tuple of int
+        Positions of the members in ``group.operations``.
+    """
+
+    name: str
+    latex: str
+    size: int
+    representative: object = field(repr=False)
+    indices: tuple = field(repr=False)
+
+
+@dataclass(frozen=True)
+class Irrep:
+    """An irreducible representation of a point group.
+
+    Attributes
+    ----------
+    label : str
+        Mulliken label (ASCII, prime as ``'``): ``'A1g'``, ``'E'``, ``"A2''"``,
+        ``'1E'`` / ``'2E'`` for the members of a complex-conjugate pair.
+    latex : str
+        The label in LaTeX, e.g. ``'A_{1g}'``, ``'{}^{1}E'``.
+    dim : int
+        Dimension.
+    characters : tuple
+        Exact character (sympy number) at each class, in the table's class order.
+    is_real : bool
+        True when every character is real.  (Every real irrep of a point group
+        has real orthogonal matrices.)
+    conjugate : str or None
+        For a complex irrep, the label of its complex conjugate.
+    real_label : str
+        Label of the real irrep that contains it: the label itself for a real
+        irrep, the pair's label (``'E'``) for a member of a complex pair.
+    """
+
+    label: str
+    latex: str
+    dim: int
+    characters: tuple
+    is_real: bool
+    conjugate: object = None
+    real_label: str = ""
+
+
+def group_key(group):
+    """Hashable key of a finite group in its setting (operations and recorded re-orientation)."""
+    rot = getattr(getattr(group, "names", None), "rotation", None)
+    rkey = None if rot is None else tuple(round(float(v), 9) for v in sp.Matrix(rot))
+    return (tuple(op.key for op in group.operations), rkey)
+
+
+class CharacterTable:
+    """The exact character table of a finite point group (immutable).
+
+    Attributes
+    ----------
+    group : PointGroup
+        The group, in its own setting.
+    classes : tuple of ConjugacyClass
+        Classes in conventional order.
+    irreps : tuple of Irrep
+        Irreducible representations over the complex numbers, in Mulliken order;
+        complex-conjugate pairs appear as their two members (``1E``, ``2E``).
+    real_irreps : tuple of Irrep
+        The irreducible representations over the real numbers: each complex
+        pair replaced by its real two-dimensional form (label ``E``,
+        characters ``chi + conj(chi)``).
+
+    Notes
+    -----
+    The values are sympy numbers (radicals such as ``-1/2 + sqrt(3)*I/2`` or
+    ``1/2 + sqrt(5)/2``).  ``str(table)`` is a text table, :meth:`latex` a
+    LaTeX tabular.  Tables are cached per group setting; build one with
+    :func:`tensym.character_table`.
+
+    Examples
+    --------
+    >>> from tensym.groups.finite import PointGroup
+    >>> from tensym.groups.operations import Operation
+    >>> c3 = PointGroup.from_generators([Operation.from_triplet("-y,x-y,z", basis="hexagonal")])
+    >>> t = finite_table(c3)
+    >>> [i.label for i in t.irreps], [i.label for i in t.real_irreps]
+    (['A', '1E', '2E'], ['A', 'E'])
+    >>> t.irrep("1E").characters
+    (1, -1/2 + sqrt(3)*I/2, -1/2 - sqrt(3)*I/2)
+    """
+
+    def __init__(self, group, classes, irreps, rows, data, info):
+        self._group = group
+        self._classes = tuple(classes)
+        self._irreps = tuple(irreps)
+        self._rows = rows  # label -> tuple of Cyclotomic in class order
+        self._data = data
+        self._info = info
+        self._by_label = {i.label: i for i in self._irreps}
+        real = []
+        seen = set()
+        for i in self._irreps:
+            if i.is_real:
+                real.append(i)
+            elif i.real_label not in seen:
+                seen.add(i.real_label)
+                partner = self._by_label[i.conjugate]
+                chars = tuple(sp.expand(a + b) for a, b in zip(i.characters, partner.characters))
+                tex = i.latex.split("}", 1)[1] if i.latex.startswith("{}^{") else i.latex
+                tex = tex[1:] if tex.startswith("}") else tex
+                real.append(Irrep(i.real_label, tex, 2, chars, True, None, i.real_label))
+        self._real = tuple(real)
+        self._by_real = {i.label: i for i in self._real}
+        self._matrices = {}
+        self._class_pos = {}
+        for ci, c in enumerate(self._classes):
+            for m in c.indices:
+                self._class_pos[m] = ci
+
+    group = property(lambda self: self._group, doc="The group (PointGroup).")
+    classes = property(lambda self: self._classes, doc="Conjugacy classes (tuple of ConjugacyClass).")
+    irreps = property(lambda self: self._irreps, doc="Complex irreps (tuple of Irrep).")
+    real_irreps = property(lambda self: self._real, doc="Real irreps, complex pairs combined (tuple of Irrep).")
+
+    @property
+    def order(self):
+        """Group order."""
+        return self._data.order
+
+    @property
+    def labels(self):
+        """Labels of :attr:`irreps` (tuple of str)."""
+        return tuple(i.label for i in self._irreps)
+
+    @property
+    def values(self):
+        """Character matrix (sympy ImmutableMatrix, irreps x classes)."""
+        return sp.ImmutableMatrix([list(i.characters) for i in self._irreps])
+
+    def all_labels(self):
+        """Every accepted label: complex members and real forms."""
+        return tuple(dict.fromkeys([i.label for i in self._irreps] + [i.label for i in self._real]))
+
+    def irrep(self, label):
+        """The irrep with this label (complex member or real form).
+
+        Spelling is tolerant: ``A1g``, ``A_1g``, ``a1g``, ``E'`` / ``E_prime``.
+
+        Raises
+        ------
+        UnknownIrrepError
+            If the group has no such irrep; the message lists the nearest labels.
+        """
+        if isinstance(label, Irrep):
+            label = label.label
+        if not isinstance(label, str):
+            raise UnknownIrrepError(f"an irrep label must be a string such as 'A1', got {label!r}")
+        key = _normalise_label(label)
+        for pool in (self._by_label, self._by_real):
+            for lab, irr in pool.items():
+                if _normalise_label(lab) == key:
+                    return irr
+        options = list(self.all_labels())
+        near = difflib.get_close_matches(label, options, n=3, cutoff=0.3)
+        hint = f"; nearest: {', '.join(near)}" if near else ""
+        raise UnknownIrrepError(
+            f"group {self._group_name()} has no irrep {label!r}{hint} (its irreps: {', '.join(options)})"
+        )
+
+    def _group_name(self):
+        n = getattr(self._group, "names", None)
+        return (n.hm or n.schoenflies) if n is not None and (n.hm or n.schoenflies) else repr(self._group)
+
+    def class_of(self, op):
+        """The ConjugacyClass containing ``op`` (RepresentationError if not in the group)."""
+        try:
+            return self._classes[self._class_pos[self._group.index(op)]]
+        except KeyError:
+            raise RepresentationError(f"{op!r} is not an element of {self._group_name()}") from None
+
+    def character(self, label, op):
+        """Exact character of irrep ``label`` at operation ``op``."""
+        irr = self.irrep(label)
+        return irr.characters[self._classes.index(self.class_of(op))]
+
+    def _cyclo(self, label):
+        """Private: the character row as Cyclotomic numbers (class order)."""
+        if label in self._rows:
+            return self._rows[label]
+        irr = self._by_real[label]
+        member = next(i for i in self._irreps if i.real_label == label and not i.is_real)
+        a = self._rows[member.label]
+        b = self._rows[member.conjugate]
+        return tuple(x + y for x, y in zip(a, b))
+
+    def matrices(self, label):
+        """Exact irrep matrices, one per operation (aligned with ``group.operations``).
+
+        The matrices are unitary, real orthogonal for a real irrep (including
+        the real form of a complex pair, which uses the real and imaginary parts
+        of the pair's basis function), and their traces are the characters.
+        Built on first use and cached.
+
+        Raises
+        ------
+        UnknownIrrepError
+            For an unknown label.
+
+        Examples
+        --------
+        >>> from tensym.groups.finite import PointGroup
+        >>> from tensym.groups.operations import Operation
+        >>> g = PointGroup.from_generators([Operation.from_triplet("-y,x-y,z", basis="hexagonal"),
+        ...                                 Operation.from_triplet("-x,y,z")])
+        >>> m = finite_table(g).matrices("E")
+        >>> all((d * d.T) == sp.eye(2) for d in m)
+        True
+        """
+        irr = self.irrep(label)
+        if irr.label not in self._matrices:
+            from tensym.reps.irreps import build_matrices
+
+            self._matrices[irr.label] = build_matrices(self, irr)
+        return self._matrices[irr.label]
+
+    # --- display ---------------------------------------------------------
+    def _cells(self, irreps):
+        rows = []
+        for i in irreps:
+            rows.append([i.label] + [_fmt(v) for v in i.characters])
+        return rows
+
+    def text(self, *, real=False):
+        """The table as text (one row per irrep; ``real=True`` combines complex pairs)."""
+        irreps = self._real if real else self._irreps
+        head = [self._group_name()] + [c.name for c in self._classes]
+        rows = [head] + self._cells(irreps)
+        widths = [max(len(r[j]) for r in rows) for j in range(len(head))]
+        lines = []
+        for n, r in enumerate(rows):
+            lines.append("  ".join(cell.rjust(w) if j else cell.ljust(w) for j, (cell, w) in enumerate(zip(r, widths))))
+            if n == 0:
+                lines.append("-" * len(lines[0]))
+        pairs = [i for i in self._real if i.label not in self._by_label]
+        if pairs and not real:
+            lines.append("real forms: " + ", ".join(
+                f"{p.label} = {'+'.join(m.label for m in self._irreps if m.real_label == p.label)}" for p in pairs))
+        return "\n".join(lines)
+
+    def __str__(self):
+        return self.text()
+
+    def latex(self, *, real=False):
+        """The table as a LaTeX tabular (``real=True`` combines complex pairs)."""
+        irreps = self._real if real else self._irreps
+        n = len(self._classes)
+        head = " & ".join(["$" + _latex_group(self) + "$"] + [f"${c.latex}$" for c in self._classes])
+        lines = ["\\begin{tabular}{l" + "r" * n + "}", "\\hline", head + " \\\\", "\\hline"]
+        for i in irreps:
+            cells = [f"${i.latex}$"] + [f"${sp.latex(v)}$" for v in i.characters]
+            lines.append(" & ".join(cells) + " \\\\")
+        lines += ["\\hline", "\\end{tabular}"]
+        return "\n".join(lines)
+
+    def _repr_latex_(self):
+        return "$" + self.latex().replace("$", "") + "$"
+
+    def __repr__(self):
+        return (f"<CharacterTable {self._group_name()}: {len(self._classes)} classes, "
+                f"irreps {' '.join(self.labels)}>")
+
+    def __eq__(self, other):
+        return isinstance(other, CharacterTable) and group_key(other._group) == group_key(self._group)
+
+    def __hash__(self):
+        return hash(group_key(self._group))
+
+
+def _latex_group(table):
+    n = getattr(table._group, "names", None)
+    s = n.schoenflies if n is not None and n.schoenflies else ""
+    if s and len(s) > 1:
+        return s[0] + "_{" + s[1:] + "}"
+    return s or "G"
+
+
+def _fmt(v):
+    s = sp.sstr(v)
+    return s.replace("sqrt", "√").replace("*I", "i").replace("*", "")
+
+
+def _normalise_label(label):
+    s = label.strip().replace("_", "").replace(" ", "").replace("′′", "''").replace("″", "''").replace("′", "'")
+    s = s.replace("primeprime", "''").replace("doubleprime", "''").replace("prime", "'").replace('"', "''")
+    for a, b in (("¹", "1"), ("²", "2"), ("^", ""), ("{", ""), ("}", "")):
+        s = s.replace(a, b)
+    return s.lower()
+
+
+_CACHE = {}
+
+
+def finite_table(group):
+    """The (cached) character table of a finite group; private, see tensym.character_table."""
+    key = group_key(group)
+    hit = _CACHE.get(key)
+    if hit is not None:
+        return hit
+    data = class_data(group)
+    rows = exact_characters(data)
+    names, info = name_classes(group, data)
+    labels = label_irreps(group, data, rows, info)
+    corder = sorted(range(len(names)), key=lambda c: names[c].key)
+    iorder = sorted(range(len(rows)), key=lambda i: labels[i][2])
+    ops = group.operations
+    classes = [ConjugacyClass(names[c].text, names[c].latex, data.sizes[c], ops[data.classes[c][0]],
+                              data.classes[c]) for c in corder]
+    irreps = []
+    cyc = {}
+    for i in iorder:
+        label, tex, _key, conj, real_label = labels[i]
+        vals = tuple(rows[i][c].to_sympy() for c in corder)
+        is_real = conj is None
+        irreps.append(Irrep(label, tex, int(rows[i][0].rational_value()), vals, is_real,
+                            labels[conj][0] if conj is not None else None, real_label))
+        cyc[label] = tuple(rows[i][c] for c in corder)
+    if len({i.label for i in irreps}) != len(irreps):
+        raise ArithmeticError(f"duplicate irrep labels {[i.label for i in irreps]} (labelling failed)")
+    table = CharacterTable(group, classes, irreps, cyc, data, info)
+    _CACHE[key] = table
+    return table
