@@ -66,10 +66,32 @@ def _parse_component(text, where):
         row["xyz".index(var)] += coeff
         pos = m.end()
     if pos != len(text):
-        raise InvalidOperationError(
-            f"cannot read {text!r} in triplet {where!r}: each component is a sum of "
-            "+/- x, y, z with optional rational factors (translations are not accepted)"
-        )
+        row = _parse_algebraic(text)
+        if row is None:
+            raise InvalidOperationError(
+                f"cannot read {text!r} in triplet {where!r}: each component is a sum of "
+                "+/- x, y, z with exact factors such as 1/2 or sqrt(3)/2 (translations are not accepted)"
+            )
+    return row
+
+
+_ALGEBRAIC = re.compile(r"^(?:[0-9xyz+\-*/().]|sqrt)+$")
+_XYZ = sp.symbols("x y z")
+
+
+def _parse_algebraic(text):
+    """Coefficients of a linear form with exact algebraic factors, e.g. ``sqrt(3)/2*x-y/2``; None if not one."""
+    if not _ALGEBRAIC.match(text):
+        return None
+    try:
+        expr = sp.expand(sp.sympify(text, locals={"x": _XYZ[0], "y": _XYZ[1], "z": _XYZ[2], "sqrt": sp.sqrt}))
+    except (sp.SympifyError, TypeError, SyntaxError, ZeroDivisionError):
+        return None
+    row = [expr.coeff(v) for v in _XYZ]
+    if any(c.free_symbols or c.has(sp.Float) for c in row):
+        return None
+    if sp.expand(expr - sum(c * v for c, v in zip(row, _XYZ))) != 0:
+        return None
     return row
 
 
