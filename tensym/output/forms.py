@@ -33,7 +33,7 @@ import sympy as sp
 from tensym.output.symbols import text_latex
 from tensym.output.text import chunks, expr_latex, expr_text, grid, group_heading, group_heading_latex
 
-__all__ = ["form_text", "form_latex", "form_markdown", "form_record", "index_letters", "title_latex"]
+__all__ = ["form_text", "form_latex", "form_markdown", "form_record", "index_letters", "title_latex", "spec_words"]
 
 
 def index_letters(prop):
@@ -86,9 +86,43 @@ def _matrix_cells(m):
     return [[expr_text(m[i, j]) for j in range(m.cols)] for i in range(m.rows)]
 
 
-def _heading_lines(form):
-    syms = ", ".join(map(str, form.symbols)) or "none"
-    return [form.property.title, group_heading(form.group), f"{form.n_independent} independent: {syms}"]
+def spec_words(spec, letter="T"):
+    """Words describing a TensorSpec: rank, parity, index symmetry.
+
+    Examples
+    --------
+    >>> from tensym.tensors import TensorSpec
+    >>> spec_words(TensorSpec(2, ["-ji"], axial=True))
+    'rank-2 tensor, axial, T_ij = -T_ji'
+    """
+    from tensym.tensors.spec import INDEX_LETTERS
+
+    ident = INDEX_LETTERS[:spec.rank]
+    words = [f"rank-{spec.rank} tensor"]
+    if spec.axial:
+        words.append("axial")
+    if spec.time_odd:
+        words.append("time-odd")
+    for sym in spec.symmetries:
+        sign = "-" if sym.startswith("-") else ""
+        words.append(f"{letter}_{ident} = {sign}{letter}_{sym.lstrip('+-')}")
+    return ", ".join(words)
+
+
+def _title(form):
+    if form.property.name == "tensor":
+        return spec_words(form.spec, form.property.symbol)
+    return form.property.title
+
+
+def _heading_lines(form, *, convention=True):
+    syms = ", ".join(map(str, form.symbols)) or "none (every component vanishes)"
+    lines = [_title(form), group_heading(form.group)]
+    conv = form.property.convention
+    if convention and any(form.property.halved) and conv:
+        lines.append("Voigt: " + conv)
+    lines.append(f"{form.n_independent} independent: {syms}")
+    return lines
 
 
 def form_text(form):
@@ -201,7 +235,7 @@ def form_latex(form, *, standalone=False):
 def form_heading_latex(form):
     """Text-mode LaTeX heading of a form (property, group and setting)."""
     syms = ", ".join(f"${sp.latex(s)}$" for s in form.symbols) or "none"
-    return (title_latex(form.property.title) + " in " + group_heading_latex(form.group)
+    return (title_latex(_title(form)) + " in " + group_heading_latex(form.group)
             + f"; {form.n_independent} independent: " + syms + ".")
 
 
@@ -215,7 +249,7 @@ def form_markdown(form):
     >>> print(form_markdown(tensor_form("pyroelectric", catalog_group("6mm"))).splitlines()[2])
     | | 1 |
     """
-    head = _heading_lines(form)
+    head = _heading_lines(form, convention=False)
     lines = [f"**{head[0]}**, {head[1]}; {head[2]}", ""]
     v = form.voigt
     if isinstance(v, sp.MatrixBase):
@@ -269,7 +303,7 @@ def form_record(form):
     return {
         "kind": "tensor_form",
         "property": form.property.name,
-        "title": form.property.title,
+        "title": _title(form),
         "convention": form.property.convention,
         "rank": form.spec.rank,
         "axial": bool(getattr(form.spec, "axial", False)),

@@ -1,0 +1,332 @@
+"""The ``tensym`` command line (also ``python -m tensym``).
+
+Subcommands print tensym results in the format asked for with ``--format``
+(``text``, ``latex``, ``markdown``, ``json``; ``--standalone`` makes the LaTeX a
+complete document).  Bad input ends with exit status 2 and one line on
+standard error that says what was wrong and what is accepted.
+
+Run ``tensym --help`` or ``tensym COMMAND --help`` for the details and examples.
+
+Examples
+--------
+>>> from tensym.cli import main
+>>> main(["form", "6mm", "pyroelectric"])
+pyroelectric coefficients p_i
+point group 6mm (C6v), setting: 6-fold along z, mirror normals x and y (and their 60-degree images)
+1 independent: p3
+<BLANKLINE>
+      1
+  1   .
+  2   .
+  3  p3
+0
+"""
+
+import argparse
+import re
+import sys
+
+from tensym.errors import TensymError
+
+__all__ = ["main", "build_parser", "TOUR_GROUPS", "TOUR_PROPERTIES"]
+
+#: Groups of ``tensym tour``: a poled ceramic, the quartz class, the lithium
+#: niobate class, a tetragonal perovskite class and a cubic piezoelectric class.
+TOUR_GROUPS = ("6mm", "32", "3m", "4mm", "-43m")
+#: Properties of ``tensym tour``.
+TOUR_PROPERTIES = ("elastic_stiffness", "piezoelectric_d")
+
+_FORMATS = ("text", "latex", "markdown", "json")
+
+_MAIN_HELP = """\
+Exact symmetry algebra of crystal property tensors: reduced forms of property
+tensors in any point group, and the listings behind them.
+Run 'tensym COMMAND --help' for the options and examples of a command.
+"""
+
+_MAIN_EPILOG = """\
+examples:
+  tensym tour
+  tensym groups --which settings
+  tensym form 6mm piezoelectric_d elastic_stiffness
+  tensym form 4/m --rank 2 --sym=-ji --axial
+  tensym form 32 elastic_compliance --format latex --standalone > s32.tex
+"""
+
+
+class _Parser(argparse.ArgumentParser):
+    """An ArgumentParser whose errors are one line on stderr and exit status 2."""
+
+    def error(self, message):
+        self.exit(2, f"{self.prog}: {message} (see '{self.prog} --help')\n")
+
+
+class _MainParser(_Parser):
+    """The top parser: its help lists the commands in one column, then the examples."""
+
+    commands = ()
+
+    def format_help(self):
+        lines = [self.format_usage().rstrip(), "", self.description.rstrip(), "", "commands:"]
+        width = max(len(n) for n, _ in self.commands)
+        lines += [f"  {n.ljust(width)}  {h}" for n, h in self.commands]
+        lines += ["", "options:", "  -h, --help  show this help and exit", "", self.epilog.rstrip()]
+        return "\n".join(lines) + "\n"
+
+
+def _add_format(p, *, latex=True):
+    fmts = _FORMATS if latex else ("text", "markdown", "json")
+    p.add_argument("--format", "-f", default="text", choices=fmts, metavar="FORMAT",
+                   help="output format: " + ", ".join(fmts) + " (default: text)")
+    if latex:
+        p.add_argument("--standalone", action="store_true",
+                       help="with --format latex: print a complete LaTeX document instead of math-mode content")
+
+
+# --- rendering ---------------------------------------------------------------------
+def _emit(results, args, *, title=None):
+    """Text of a list of results in the chosen format."""
+    from tensym.output import as_record, latex_document, render
+
+    fmt = args.format
+    if getattr(args, "standalone", False) and fmt != "latex":
+        raise _UsageError("--standalone needs --format latex")
+    if fmt == "json":
+        import json
+
+        recs = [as_record(r) for r in results]
+        return json.dumps(recs if len(recs) != 1 or getattr(args, "_json_list", False) else recs[0],
+                          indent=2, ensure_ascii=False)
+    if fmt == "latex" and getattr(args, "standalone", False):
+        return latex_document(results, title=title).rstrip("\n")
+    sep = "\n\n" if fmt != "text" else "\n\n\n"
+    return sep.join(render(r, format=fmt) for r in results)
+
+
+class _UsageError(Exception):
+    """A combination of options that argparse cannot check by itself."""
+
+
+# --- commands -------------------------------------------------------------------------
+def _cmd_tour(args):
+    from tensym.groups import point_group
+    from tensym.tensors import tensor_form
+
+    groups = [g.strip() for g in args.groups] if args.groups else list(TOUR_GROUPS)
+    forms = [tensor_form(p, point_group(g)) for g in groups for p in TOUR_PROPERTIES]
+    return _emit(forms, args, title="Reduced elastic and piezoelectric forms")
+
+
+def _cmd_groups(args):
+    from tensym.output.listings import group_table
+
+    if not args.symbols:
+        return _emit([group_table(which=args.which)], args)
+    from tensym.output.listings import operations_table
+
+    return _emit([operations_table(s.strip()) for s in args.symbols], args)
+
+
+def _cmd_properties(args):
+    from tensym.output.listings import property_table
+
+    return _emit([property_table()], args)
+
+
+def _split_syms(values):
+    out = []
+    for v in values or ():
+        out.extend(x.strip() for x in v.split(",") if x.strip())
+    return out
+
+
+def _cmd_form(args):
+    from tensym.groups import point_group
+    from tensym.tensors import TensorSpec, tensor_form
+
+    group = point_group(args.group.strip())
+    whats = list(args.properties)
+    spec_flags = args.sym or args.axial or args.time_odd or args.letter
+    if args.rank is None and spec_flags:
+        raise _UsageError("--sym, --axial, --time-odd and --letter describe a spec: give --rank too")
+    if args.rank is not None:
+        whats.append(TensorSpec(args.rank, _split_syms(args.sym), axial=args.axial, time_odd=args.time_odd))
+    if not whats:
+        raise _UsageError("name at least one property ('tensym properties' lists them) or give --rank")
+    forms = []
+    for w in whats:
+        letter = args.letter if isinstance(w, TensorSpec) else None
+        forms.append(tensor_form(w, group, symbol=letter))
+    args._json_list = True
+    return _emit(forms, args)
+
+
+# --- parser ---------------------------------------------------------------------------------
+def build_parser():
+    """The argparse parser of the ``tensym`` command.
+
+    Returns
+    -------
+    argparse.ArgumentParser
+        Its subparsers set ``handler`` (a function of the parsed arguments
+        returning the text to print).
+
+    Examples
+    --------
+    >>> p = build_parser()
+    >>> args = p.parse_args(["form", "6mm", "elastic_stiffness", "--format", "json"])
+    >>> args.group, args.properties, args.format
+    ('6mm', ['elastic_stiffness'], 'json')
+    """
+    parser = _MainParser(
+        prog="tensym",
+        description=_MAIN_HELP,
+        epilog=_MAIN_EPILOG,
+        formatter_class=argparse.RawDescriptionHelpFormatter,
+    )
+    sub = parser.add_subparsers(dest="command", metavar="COMMAND", parser_class=_Parser)
+    raw = argparse.RawDescriptionHelpFormatter
+
+    p = sub.add_parser("tour", help="reduced elastic and piezoelectric forms for a few groups",
+                       formatter_class=raw,
+                       description="Print the reduced elastic stiffness c_IJ and piezoelectric d_iJ of a few "
+                                   "groups\n(default: " + ", ".join(TOUR_GROUPS) + ").",
+                       epilog="examples:\n  tensym tour\n  tensym tour --groups 622 -6m2\n"
+                              "  tensym tour --format latex --standalone > tour.tex\n")
+    p.add_argument("--groups", nargs="+", metavar="GROUP", help="groups to show instead of the defaults")
+    _add_format(p)
+    p.set_defaults(handler=_cmd_tour)
+
+    p = sub.add_parser("groups", help="list the named point groups, or the operations of some",
+                       formatter_class=raw,
+                       description="Without symbols: a table of named groups with their Schoenflies and full "
+                                   "symbols,\norder, crystal system and setting.  With symbols: the operations "
+                                   "of each group\nas coordinate triplets with their geometric meaning.",
+                       epilog="examples:\n  tensym groups\n  tensym groups --which settings\n"
+                              "  tensym groups --which continuous --format markdown\n  tensym groups -3m D2d\n")
+    p.add_argument("symbols", nargs="*", metavar="SYMBOL",
+                   help="groups whose operations to list (Hermann-Mauguin or Schoenflies symbols)")
+    p.add_argument("--which", default="crystallographic",
+                   choices=("crystallographic", "settings", "icosahedral", "continuous", "all"),
+                   help="which groups to list (default: the 32 classes in their default settings)")
+    _add_format(p)
+    p.set_defaults(handler=_cmd_groups)
+
+    p = sub.add_parser("properties", help="list the property catalog", formatter_class=raw,
+                       description="The named properties: symbol with Voigt indices, rank, intrinsic index "
+                                   "symmetry,\nparity and number of components without symmetry.",
+                       epilog="examples:\n  tensym properties\n  tensym properties --format json\n")
+    _add_format(p)
+    p.set_defaults(handler=_cmd_properties)
+
+    p = sub.add_parser(
+        "form", help="reduced form of properties, or of a tensor spec, in a group", formatter_class=raw,
+        description="The symmetry-reduced form of one or more catalog properties in a group: the Voigt\n"
+                    "matrix with the independent constants and the relations between components.\n"
+                    "Instead of (or besides) a property, describe a tensor with --rank, --sym, --axial\n"
+                    "and --time-odd.",
+        epilog="examples:\n"
+               "  tensym form 6mm piezoelectric_d elastic_stiffness\n"
+               "  tensym form C3v second_harmonic second_harmonic_kleinman\n"
+               "  tensym form 4/m --rank 2 --sym=-ji --axial --letter G\n"
+               "  tensym form m-3m --rank 4 --sym jikl,ijlk,klij --format json\n"
+               "  tensym form 32 elastic_compliance --format latex --standalone > s32.tex\n"
+               "note: write an antisymmetry as --sym=-ji (or --sym -ji; both are read).\n")
+    p.add_argument("group", metavar="GROUP", help="point-group symbol (e.g. 6mm, C6v, -4m2, inf/mm, SO(3))")
+    p.add_argument("properties", nargs="*", metavar="PROPERTY", help="catalog names ('tensym properties')")
+    p.add_argument("--rank", type=int, help="rank of a tensor given by its spec")
+    p.add_argument("--sym", action="append", metavar="PERM",
+                   help="an index order the tensor equals, e.g. ji or jikl; a leading '-' for antisymmetry; "
+                        "repeat or separate by commas")
+    p.add_argument("--axial", action="store_true", help="the spec is axial (transforms with det(R) R)")
+    p.add_argument("--time-odd", action="store_true", help="the spec changes sign under time reversal")
+    p.add_argument("--letter", help="letter of the spec's components (default T)")
+    _add_format(p)
+    p.set_defaults(handler=_cmd_form)
+
+    _add_capability_commands(sub, raw)
+    parser.commands = tuple((a.dest, a.help) for a in sub._choices_actions)
+    return parser
+
+
+def _add_capability_commands(sub, raw):
+    """Subcommands over the reps and data layers, added where those functions exist."""
+    return None
+
+
+_DASH_DIGIT = re.compile(r"^-[0-9]")
+
+
+def _protect_dashes(argv):
+    """Let values that begin with '-' through argparse, which would take them for options.
+
+    ``--sym -ji`` becomes ``--sym=-ji``; a group symbol such as ``-42m`` or
+    ``-3m`` gets a leading blank (argparse reads a word with a blank as a
+    value; the handlers strip it).
+    """
+    out = []
+    i = 0
+    while i < len(argv):
+        a = argv[i]
+        if a == "--sym" and i + 1 < len(argv) and argv[i + 1].startswith("-") and not argv[i + 1].startswith("--"):
+            out.append(f"--sym={argv[i + 1]}")
+            i += 2
+            continue
+        out.append(" " + a if _DASH_DIGIT.match(a) else a)
+        i += 1
+    return out
+
+
+def main(argv=None):
+    """Run the ``tensym`` command line; return the exit status.
+
+    Parameters
+    ----------
+    argv : list of str, optional
+        The arguments after the program name (default: ``sys.argv[1:]``).
+
+    Returns
+    -------
+    int
+        0 on success; 2 on bad input (one line on stderr, no traceback).
+
+    Examples
+    --------
+    >>> main(["form", "6mmm", "pyroelectric"])
+    2
+    """
+    argv = list(sys.argv[1:] if argv is None else argv)
+    parser = build_parser()
+    if not argv:
+        parser.print_help()
+        return 0
+    try:
+        args = parser.parse_args(_protect_dashes(argv))
+    except SystemExit as exc:  # argparse: --help (0) or a usage error (2)
+        return int(exc.code or 0)
+    if args.command is None:
+        parser.print_help()
+        return 0
+    prog = f"tensym {args.command}"
+    try:
+        text = args.handler(args)
+    except TensymError as exc:
+        print(f"{prog}: {exc}", file=sys.stderr)
+        return 2
+    except _UsageError as exc:
+        print(f"{prog}: {exc} (see '{prog} --help')", file=sys.stderr)
+        return 2
+    except OSError as exc:
+        print(f"{prog}: {exc.strerror or exc}: {exc.filename}" if exc.filename else f"{prog}: {exc}",
+              file=sys.stderr)
+        return 2
+    try:
+        sys.stdout.write(text + "\n")
+        sys.stdout.flush()
+    except BrokenPipeError:  # e.g. piped into head
+        return 0
+    return 0
+
+
+if __name__ == "__main__":  # pragma: no cover
+    sys.exit(main())
