@@ -431,11 +431,13 @@ class Operation:
                     terms.append(("+", var))
                 elif c == -1:
                     terms.append(("-", var))
+                elif c.is_Add:
+                    # a sum such as 1/4 + sqrt(5)/4 needs brackets to stay a factor
+                    terms.append(("+", f"({sp.sstr(c).replace(' ', '')})*{var}"))
+                elif c.is_negative:
+                    terms.append(("-", f"{sp.sstr(-c).replace(' ', '')}*{var}"))
                 else:
-                    if sp.Rational(0) > c if c.is_number and c.is_real else False:
-                        terms.append(("-", f"{sp.sstr(-c)}*{var}"))
-                    else:
-                        terms.append(("+", f"{sp.sstr(c)}*{var}"))
+                    terms.append(("+", f"{sp.sstr(c).replace(' ', '')}*{var}"))
             if not terms:
                 parts.append("0")
                 continue
