@@ -41,7 +41,7 @@ import json
 from tensym.errors import InvalidOptionError
 from tensym.output.symbols import text_latex
 
-__all__ = ["render", "as_record", "latex_parts", "FORMATS", "register_renderer"]
+__all__ = ["render", "as_record", "latex_block", "FORMATS", "register_renderer"]
 
 #: The output formats accepted by :func:`render`.
 FORMATS = ("text", "latex", "markdown", "json")
@@ -50,19 +50,20 @@ FORMATS = ("text", "latex", "markdown", "json")
 class _Renderer:
     """The per-format functions of one result type (plain functions of the result)."""
 
-    def __init__(self, text, latex, markdown, record, heading, after=None):
+    def __init__(self, text, latex, markdown, record, heading, after=None, block=None):
         self.text = text
         self.latex = latex
         self.markdown = markdown
         self.record = record
         self.heading = heading
         self.after = after or (lambda r: "")
+        self.block = block
 
 
 _REGISTRY = []  # (class, _Renderer), searched in order
 
 
-def register_renderer(cls, *, text, latex, markdown, record, heading, after=None):
+def register_renderer(cls, *, text, latex, markdown, record, heading, after=None, block=None):
     """Make :func:`render` know a result type.
 
     Parameters
@@ -75,6 +76,9 @@ def register_renderer(cls, *, text, latex, markdown, record, heading, after=None
         display (optional).
     latex : callable
         ``latex(result, standalone=False)`` returning math-mode content or a document.
+    block : callable, optional
+        Text-mode LaTeX of the whole result for :func:`latex_document`
+        (default: the heading, the math-mode content in a display, ``after``).
 
     Returns
     -------
@@ -92,7 +96,7 @@ def register_renderer(cls, *, text, latex, markdown, record, heading, after=None
     >>> render(Note(), format="markdown")
     '*note*'
     """
-    _REGISTRY.insert(0, (cls, _Renderer(text, latex, markdown, record, heading, after)))
+    _REGISTRY.insert(0, (cls, _Renderer(text, latex, markdown, record, heading, after, block)))
     return cls
 
 
@@ -108,13 +112,27 @@ def _load_builtin():
         forms.form_text, forms.form_latex, forms.form_markdown, forms.form_record, forms.form_heading_latex)))
     _REGISTRY.append((Table, _Renderer(
         Table.text, Table.latex, Table.markdown, Table.record,
-        lambda t: text_latex(t.title), lambda t: "\n\n".join(text_latex(n) for n in t.notes))))
+        _table_title, _table_notes, _table_block)))
     from tensym.output import results  # renderers of the reps and data result types that exist
 
     results.register_all(register_renderer)
 
 
 _load_builtin.done = False
+
+
+def _table_notes(t):
+    return "\n\n".join("\\noindent " + text_latex(n) for n in t.notes)
+
+
+def _table_title(t):
+    return t.latex_title if t.latex_title is not None else text_latex(t.title)
+
+
+def _table_block(t):
+    head = "\\noindent " + _table_title(t) + "\n" if t.title else ""
+    notes = _table_notes(t)
+    return head + "{\\small\n" + t.longtable() + "\n}" + ("\n" + notes if notes else "")
 
 
 def _renderer(result):
@@ -216,14 +234,21 @@ def as_record(result):
     return _renderer(result).record(result)
 
 
-def latex_parts(result):
-    """(heading, math-mode fragment, text after) of a result, for documents.
+def latex_block(result):
+    """Text-mode LaTeX of one result for a document: heading, display, text after.
+
+    Tables become a ``longtable`` (which breaks across pages); other results
+    a heading paragraph and their math-mode content in a ``\\[ ... \\]`` display.
 
     Examples
     --------
     >>> from tensym.output.table import Table
-    >>> latex_parts(Table(title="t", columns=("a",), rows=(("1",),), notes=("n",)))[2]
-    'n'
+    >>> latex_block(Table(title="t", columns=("a",), rows=(("1",),), notes=("n",))).splitlines()[-1]
+    '\\\\noindent n'
     """
     r = _renderer(result)
-    return r.heading(result), r.latex(result), r.after(result)
+    if r.block is not None:
+        return r.block(result)
+    head, frag, after = r.heading(result), r.latex(result), r.after(result)
+    block = ("\\noindent " + head + "\n" if head else "") + "\\[\n" + frag + "\n\\]"
+    return block + ("\n" + after if after else "")

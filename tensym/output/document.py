@@ -2,8 +2,9 @@
 
 Every result's ``latex()`` gives math-mode content (like ``sympy.latex``);
 :func:`latex_document` puts each one, under a text heading, in a display of
-an ``article`` document that needs only amsmath (and geometry for margins),
-so that ``pdflatex`` compiles it as it is.
+an ``article`` document that needs only amsmath, geometry (margins) and
+longtable (tables that break across pages), all part of every LaTeX
+installation, so that ``pdflatex`` compiles it as it is.
 
 Examples
 --------
@@ -23,19 +24,11 @@ LATEX_PREAMBLE = (
     "\\documentclass[11pt]{article}\n"
     "\\usepackage{amsmath}\n"
     "\\usepackage[margin=2cm]{geometry}\n"
+    "\\usepackage{longtable}\n"
     "\\setcounter{MaxMatrixCols}{20}\n"
     "\\begin{document}\n"
 )
 LATEX_END = "\\end{document}\n"
-
-
-def _part(result):
-    """(text-mode heading, math-mode fragment, text after) of a result; (paragraph, None, '') for a string."""
-    if isinstance(result, str):
-        return text_latex(result), None, ""
-    from tensym.output.dispatch import latex_parts
-
-    return latex_parts(result)
 
 
 def latex_document(results, *, title=None):
@@ -69,6 +62,8 @@ def latex_document(results, *, title=None):
     >>> "\\\\begin{pmatrix}" in doc and "Only p3 survives." in doc
     True
     """
+    from tensym.output.dispatch import latex_block
+
     if isinstance(results, str) or not hasattr(results, "__iter__"):
         results = [results]
     results = list(results)
@@ -83,10 +78,8 @@ def latex_document(results, *, title=None):
                 f"cannot put a {type(r).__name__} in a LaTeX document: it has no latex() method; "
                 "accepted: tensym results and strings"
             )
-        head, frag, after = _part(r)
-        if frag is None:
-            body.append(head)
+        if isinstance(r, str):
+            body.append(text_latex(r))
         else:
-            block = ("\\noindent " + head + "\n" if head else "") + "\\[\n" + frag + "\n\\]"
-            body.append(block + ("\n" + after if after else ""))
-    return LATEX_PREAMBLE + "\n\n".join(body) + "\n" + LATEX_END
+            body.append(latex_block(r))
+    return LATEX_PREAMBLE + "\n\n\\medskip\n".join(body) + "\n" + LATEX_END

@@ -265,9 +265,10 @@ def form_markdown(form):
 
 
 def _nested(v):
-    if isinstance(v, sp.MatrixBase):
-        return [[sp.sstr(v[i, j]) for j in range(v.cols)] for i in range(v.rows)]
-    return [sp.sstr(x) for x in v] if len(v.shape) == 1 else [_nested(v[k]) for k in range(v.shape[0])]
+    def walk(x):
+        return [walk(y) for y in x] if isinstance(x, list) else sp.sstr(x)
+
+    return walk(v.tolist())
 
 
 def group_record(group):
@@ -298,7 +299,7 @@ def form_record(form):
         nested = _nested(v)
         shape = [v.rows, v.cols]
     else:
-        shape = list(v.shape)
+        shape = [int(n) for n in v.shape]
         nested = None if len(shape) > 3 else _nested(v)
     return {
         "kind": "tensor_form",

@@ -147,6 +147,7 @@ def property_table():
         latex_rows=tuple(lrows),
         latex_columns=tuple(f"\\text{{{c}}}" for c in ("name", "symbol", "rank", "index symmetry", "parity",
                                                         "triclinic")),
+        latex_spec="llrp{5cm}lr",
         notes=("triclinic: independent components without any symmetry (group 1)",),
     )
 
@@ -187,7 +188,7 @@ def operations_table(group):
     '-x,y,z'
     """
     from tensym.groups import as_group
-    from tensym.output.text import group_heading
+    from tensym.output.text import group_heading, group_heading_latex
 
     g = as_group(group)
     if getattr(g, "is_continuous", False):
@@ -217,5 +218,7 @@ def operations_table(group):
         rows=tuple(rows),
         latex_rows=tuple(lrows),
         latex_columns=tuple(f"\\text{{{text_latex(c)}}}" for c in cols),
+        latex_spec="rll" + ("lp{6.5cm}" if hexa else "p{9cm}"),
+        latex_title=group_heading_latex(g) + f"; order {g.order}",
         notes=notes,
     )

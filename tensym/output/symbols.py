@@ -76,10 +76,12 @@ def hm_latex(symbol):
     --------
     >>> hm_latex("4/m -3 2/m")
     '4/m\\\\,\\\\bar{3}\\\\,2/m'
-    >>> hm_latex("-6m2")
-    '\\\\bar{6}m2'
+    >>> hm_latex("-6m2"), hm_latex("SO(3)")
+    ('\\\\bar{6}m2', '\\\\mathrm{SO}(3)')
     """
     s = str(symbol).strip().replace("∞", "inf")
+    if s in ("SO(3)", "O(3)"):
+        return "\\mathrm{" + s[:-3] + "}(3)"
     out = []
     i = 0
     while i < len(s):

@@ -31,6 +31,34 @@ def _is_number(text):
     return t.isdigit()
 
 
+def _text_cell(cell):
+    """A math-mode cell for a text-mode table: plain text for a lone \\text{...}, else $...$."""
+    if cell.startswith("\\text{") and cell.endswith("}") and cell.count("\\text{") == 1:
+        inner = cell[len("\\text{"):-1]
+        if inner.count("{") == inner.count("}"):
+            return inner
+    return f"${cell}$" if cell else ""
+
+
+def _paragraph_columns(spec):
+    """Flags per column of an array spec: True for p{...} (paragraph, text-mode) columns."""
+    flags, i = [], 0
+    while i < len(spec):
+        ch = spec[i]
+        if ch in "lrc":
+            flags.append(False)
+        elif ch in "pmb" and i + 1 < len(spec) and spec[i + 1] == "{":
+            depth, i = 0, i + 1
+            while i < len(spec):
+                depth += {"{": 1, "}": -1}.get(spec[i], 0)
+                if depth == 0:
+                    break
+                i += 1
+            flags.append(True)
+        i += 1
+    return flags
+
+
 @dataclass(frozen=True)
 class Table:
     """A titled table of text cells, with optional LaTeX cells and notes.
@@ -52,6 +80,8 @@ class Table:
         Lines printed under the table.
     rule_after : tuple of int
         Row indices after which a horizontal rule is drawn (LaTeX, text).
+    latex_title : str or None
+        The title as text-mode LaTeX for documents (None: the escaped title).
     latex_spec : str or None
         Column specification of the LaTeX ``array`` (None: ``l`` for text
         columns, ``r`` for numeric ones); e.g. ``'lllp{5cm}'`` to wrap words.
@@ -70,6 +100,7 @@ class Table:
     notes: tuple = ()
     rule_after: tuple = ()
     latex_spec: str = None
+    latex_title: str = None
 
     def __post_init__(self):
         object.__setattr__(self, "columns", tuple(str(c) for c in self.columns))
@@ -138,10 +169,15 @@ class Table:
         cols = self.latex_columns or tuple(f"\\text{{{text_latex(c)}}}" for c in self.columns)
         rows = self.latex_rows or tuple(tuple(f"\\text{{{text_latex(c)}}}" for c in r) for r in self.rows)
         spec = self.latex_spec or "".join("r" if n else "l" for n in num)
+        para = _paragraph_columns(spec) + [False] * len(self.columns)
+
+        def cells(r):  # paragraph columns of an array are in text mode
+            return " & ".join(_text_cell(c) if para[j] else c for j, c in enumerate(r))
+
         lines = [" & ".join(cols) + " \\\\", "\\hline"]
         for i, r in enumerate(rows):
             end = " \\\\" if i < len(rows) - 1 else ""
-            lines.append(" & ".join(r) + end)
+            lines.append(cells(r) + end)
             if i in self.rule_after and i != len(rows) - 1:
                 lines.append("\\hline")
         frag = "\\begin{array}{" + spec + "}\n" + "\n".join(lines) + "\n\\end{array}"
@@ -153,6 +189,35 @@ class Table:
 
     def _repr_latex_(self):
         return "$$" + self.latex() + "$$"
+
+    def longtable(self):
+        """Text-mode LaTeX: a ``longtable`` (breaks across pages), for documents.
+
+        Cells written as ``\\text{...}`` are set as plain text (so that words
+        wrap in ``p{}`` columns); other cells in math mode.  Needs
+        ``\\usepackage{longtable}`` (part of every LaTeX installation).
+
+        Examples
+        --------
+        >>> print(Table(title="", columns=("a", "n"), rows=(("x", "1"),)).longtable())
+        \\begin{longtable}{lr}
+        a & n \\\\
+        \\hline
+        \\endhead
+        x & 1
+        \\end{longtable}
+        """
+        num = self._numeric_columns()
+        cols = self.latex_columns or tuple(f"\\text{{{text_latex(c)}}}" for c in self.columns)
+        rows = self.latex_rows or tuple(tuple(f"\\text{{{text_latex(c)}}}" for c in r) for r in self.rows)
+        spec = self.latex_spec or "".join("r" if n else "l" for n in num)
+        lines = [" & ".join(_text_cell(c) for c in cols) + " \\\\", "\\hline", "\\endhead"]
+        for i, r in enumerate(rows):
+            end = " \\\\" if i < len(rows) - 1 else ""
+            lines.append(" & ".join(_text_cell(c) for c in r) + end)
+            if i in self.rule_after and i != len(rows) - 1:
+                lines.append("\\hline")
+        return "\\begin{longtable}{" + spec + "}\n" + "\n".join(lines) + "\n\\end{longtable}"
 
     # --- Markdown and records -------------------------------------------------
     def markdown(self):

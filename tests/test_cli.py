@@ -1,0 +1,211 @@
+"""The tensym command line: subcommands, formats, and one-line errors with exit status 2."""
+
+import json
+import subprocess
+import sys
+
+import pytest
+import sympy as sp
+
+from tensym.cli import TOUR_GROUPS, TOUR_PROPERTIES, main
+
+
+def run(capsys, *argv):
+    code = main(list(argv))
+    out, err = capsys.readouterr()
+    return code, out, err
+
+
+def assert_one_line_error(code, out, err, *needles):
+    assert code == 2
+    assert out == ""
+    lines = err.strip().splitlines()
+    assert len(lines) == 1, err
+    assert "Traceback" not in err
+    for n in needles:
+        assert n in lines[0], lines[0]
+
+
+# --- no arguments and help ---------------------------------------------------------------
+def test_no_arguments_prints_the_overview(capsys):
+    code, out, err = run(capsys)
+    assert code == 0 and err == ""
+    for name in ("tour", "groups", "properties", "form"):
+        assert f"\n  {name} " in out
+    assert "examples:" in out
+
+
+@pytest.mark.parametrize("command", ["tour", "groups", "properties", "form"])
+def test_every_command_has_help_with_examples(capsys, command):
+    code, out, _ = run(capsys, command, "--help")
+    assert code == 0
+    assert "examples:" in out and f"tensym {command}" in out
+
+
+# --- form ---------------------------------------------------------------------------------------
+def test_form_prints_the_reduced_matrix(capsys):
+    code, out, err = run(capsys, "form", "6mm", "piezoelectric_d")
+    assert code == 0 and err == ""
+    # Nye 1985, Table 7 (class 6mm): d15 = d24, d31 = d32, d33
+    assert "3 independent: d15, d31, d33" in out
+    assert "  d24 = d15" in out and "  d32 = d31" in out
+
+
+def test_form_several_properties_and_schoenflies_symbol(capsys):
+    code, out, _ = run(capsys, "form", "C6v", "elastic_stiffness", "piezoelectric_e")
+    assert code == 0
+    assert out.count("point group 6mm (C6v)") == 2
+    # Nye 1985, Table 9 (hexagonal): five constants
+    assert "5 independent: c11, c12, c13, c33, c44" in out
+
+
+def test_form_group_symbols_that_begin_with_a_minus(capsys):
+    code, out, _ = run(capsys, "form", "-42m", "piezoelectric_d")
+    assert code == 0
+    # Nye 1985, Table 7 (class -42m): d14 = d25, d36
+    assert "2 independent: d14, d36" in out
+
+
+def test_form_spec_with_antisymmetry_written_either_way(capsys):
+    a = run(capsys, "form", "4/m", "--rank", "2", "--sym", "-ji", "--axial")
+    b = run(capsys, "form", "4/m", "--rank", "2", "--sym=-ji", "--axial")
+    assert a == b and a[0] == 0
+    assert "rank-2 tensor, axial, T_ij = -T_ji" in a[1]
+
+
+def test_form_spec_counts_like_the_catalog(capsys):
+    code, out, _ = run(capsys, "form", "m-3m", "--rank", "4", "--sym", "jikl,ijlk,klij", "--format", "json")
+    assert code == 0
+    rec = json.loads(out)[0]
+    # Nye 1985, Table 9 (cubic): three elastic constants
+    assert rec["n_independent"] == 3
+
+
+def test_form_json_reads_back(capsys):
+    code, out, _ = run(capsys, "form", "32", "piezoelectric_d", "--format", "json")
+    assert code == 0
+    rec = json.loads(out)
+    assert isinstance(rec, list) and len(rec) == 1
+    names = {s: sp.Symbol(s, real=True) for s in rec[0]["symbols"]}
+    row = [sp.sympify(x, locals=names) for x in rec[0]["voigt"][1]]
+    # IEEE Std 176-1987 / Nye (class 32): d25 = -d14, d26 = -2 d11
+    assert row[4] == -names["d14"] and row[5] == -2 * names["d11"]
+
+
+def test_form_latex_and_standalone(capsys):
+    code, frag, _ = run(capsys, "form", "6mm", "elastic_stiffness", "--format", "latex")
+    assert code == 0 and frag.startswith("\\begin{gathered}")
+    code, doc, _ = run(capsys, "form", "6mm", "elastic_stiffness", "--format", "latex", "--standalone")
+    assert code == 0 and doc.startswith("\\documentclass") and "\\end{document}" in doc
+
+
+def test_form_markdown(capsys):
+    code, out, _ = run(capsys, "form", "4mm", "pyroelectric", "--format", "markdown")
+    assert code == 0 and "| **3** | p3 |" in out
+
+
+# --- listings ---------------------------------------------------------------------------------------------
+def test_groups_lists_the_32_classes(capsys):
+    code, out, _ = run(capsys, "groups", "--format", "json")
+    assert code == 0
+    rows = json.loads(out)["rows"]
+    assert len(rows) == 32
+    # ITA Vol. A, Table 10.1.2.2 (from memory): order of each class
+    orders = {r["symbol"]: int(r["order"]) for r in rows}
+    assert orders["m-3m"] == 48 and orders["6/mmm"] == 24 and orders["-42m"] == 8 and orders["321"] == 6
+
+
+def test_groups_settings_and_continuous(capsys):
+    code, out, _ = run(capsys, "groups", "--which", "settings")
+    assert code == 0 and "-4m2" in out and "312" in out and "112" in out
+    code, out, _ = run(capsys, "groups", "--which", "continuous")
+    assert code == 0 and "inf/mm" in out and "SO(3)" in out
+
+
+def test_groups_operations_of_named_groups(capsys):
+    code, out, _ = run(capsys, "groups", "-3m", "D2d", "--format", "json")
+    assert code == 0
+    recs = json.loads(out)
+    # ITA Vol. A: orders 12 and 8
+    assert [len(r["rows"]) for r in recs] == [12, 8]
+    assert "hexagonal triplet" in recs[0]["columns"]
+
+
+def test_properties_listing(capsys):
+    code, out, _ = run(capsys, "properties")
+    assert code == 0
+    line = [ln for ln in out.splitlines() if ln.strip().startswith("elastic_stiffness ")][0]
+    # common practice: 21 independent elastic constants without symmetry
+    assert line.split()[-1] == "21"
+
+
+# --- tour -------------------------------------------------------------------------------------------------
+def test_tour_shows_elastic_and_piezoelectric_forms_of_each_group(capsys):
+    code, out, _ = run(capsys, "tour")
+    assert code == 0
+    assert out.count("elastic stiffness c_IJ") == len(TOUR_GROUPS)
+    assert out.count("piezoelectric strain coefficients d_iJ") == len(TOUR_GROUPS)
+    assert len(TOUR_PROPERTIES) == 2
+    # Nye 1985, Table 7 (class -43m): d14 = d25 = d36
+    assert "  d36 = d14" in out
+
+
+def test_tour_other_groups(capsys):
+    code, out, _ = run(capsys, "tour", "--groups", "622", "-6m2", "--format", "json")
+    assert code == 0
+    recs = json.loads(out)
+    assert [r["group"]["symbol"] for r in recs] == ["622", "622", "-6m2", "-6m2"]
+
+
+def test_entry_point_runs_as_a_module():
+    run_ = subprocess.run([sys.executable, "-m", "tensym", "form", "m-3m", "elastic_stiffness"],
+                          capture_output=True, text=True, timeout=120)
+    assert run_.returncode == 0, run_.stderr
+    assert "3 independent: c11, c12, c44" in run_.stdout
+
+
+def test_entry_point_bad_input_has_no_traceback():
+    run_ = subprocess.run([sys.executable, "-m", "tensym", "form", "6mmm", "pyroelectric"],
+                          capture_output=True, text=True, timeout=120)
+    assert run_.returncode == 2
+    assert run_.stderr.count("\n") == 1 and "Traceback" not in run_.stderr
+
+
+# --- bad input ---------------------------------------------------------------------------------------------
+def test_unknown_group_names_the_nearest(capsys):
+    assert_one_line_error(*run(capsys, "form", "6mmm", "pyroelectric"), "tensym form:", "'6/mmm'", "'6mm'")
+
+
+def test_unknown_property_names_the_nearest(capsys):
+    assert_one_line_error(*run(capsys, "form", "6mm", "elastic_stifness"), "elastic_stiffness")
+
+
+def test_unknown_command(capsys):
+    assert_one_line_error(*run(capsys, "frobnicate"), "invalid choice", "tour")
+
+
+def test_bad_format_lists_the_accepted_ones(capsys):
+    assert_one_line_error(*run(capsys, "form", "6mm", "pyroelectric", "--format", "html"),
+                          "text", "latex", "markdown", "json")
+
+
+def test_standalone_needs_latex(capsys):
+    assert_one_line_error(*run(capsys, "form", "6mm", "pyroelectric", "--standalone"), "--format latex")
+
+
+def test_form_needs_a_property_or_a_rank(capsys):
+    assert_one_line_error(*run(capsys, "form", "6mm"), "tensym properties")
+
+
+def test_spec_options_need_a_rank(capsys):
+    assert_one_line_error(*run(capsys, "form", "6mm", "pyroelectric", "--axial"), "--rank")
+
+
+def test_bad_spec_and_rank(capsys):
+    assert_one_line_error(*run(capsys, "form", "6mm", "--rank", "2", "--sym", "jik"), "not a permutation")
+    assert_one_line_error(*run(capsys, "form", "6mm", "--rank", "11"), "outside the supported range")
+    assert_one_line_error(*run(capsys, "form", "6mm", "--rank", "two"), "invalid int value")
+
+
+def test_operations_of_a_continuous_group_are_refused(capsys):
+    assert_one_line_error(*run(capsys, "groups", "SO(3)"), "continuous group")
