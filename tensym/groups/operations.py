@@ -244,8 +244,12 @@ class Operation:
 
     @property
     def key(self):
-        """Hashable identity key: float image rounded at 1e-8, plus the time flag."""
-        return float_key(self._num) + (int(self.time_reversal),)
+        """Hashable identity key: float image rounded at 1e-8, plus the time flag (computed once)."""
+        k = self.__dict__.get("_key")
+        if k is None:
+            k = float_key(self._num) + (int(self.time_reversal),)
+            object.__setattr__(self, "_key", k)
+        return k
 
     def __eq__(self, other):
         return isinstance(other, Operation) and self.key == other.key

@@ -110,19 +110,26 @@ def _labelling(spec, groups, halved):
 
 
 @lru_cache(maxsize=512)
-def _solve_cached(spec, groups, halved, gkey, group_ref):
+def _solve_cached(spec, groups, halved, group_ref):
     labels, factors = _labelling(spec, groups, halved)
-    return solve_invariants(spec, group_ref[0], factors=factors, priority=labels)
+    return solve_invariants(spec, group_ref.group, factors=factors, priority=labels)
 
 
-class _GroupRef(tuple):
-    """A 1-tuple holding a group, hashed by the group's key (for the solver cache)."""
+class _GroupRef:
+    """Holds a group for the solver cache; hashed and compared by the group's key."""
+
+    __slots__ = ("group", "key", "_hash")
+
+    def __init__(self, group, key):
+        self.group = group
+        self.key = key
+        self._hash = hash(key)
 
     def __hash__(self):
-        return hash(group_key(self[0]))
+        return self._hash
 
     def __eq__(self, other):
-        return isinstance(other, _GroupRef) and group_key(self[0]) == group_key(other[0])
+        return isinstance(other, _GroupRef) and self.key == other.key
 
 
 def _label_text(lab):
@@ -380,7 +387,7 @@ def tensor_form(what, group, *, symbol=None):
     """
     prop = as_property(what, symbol=symbol)
     g = _resolve_group(group)
-    sol = _solve_cached(prop.spec, prop.voigt_groups, prop.halved, group_key(g), _GroupRef((g,)))
+    sol = _solve_cached(prop.spec, prop.voigt_groups, prop.halved, _GroupRef(g, group_key(g)))
     labels, factors = _labelling(prop.spec, prop.voigt_groups, prop.halved)
     syms = tuple(sp.Symbol(prop.symbol + _label_text(labels[o]), real=True) for o in sol.free)
     return TensorForm(

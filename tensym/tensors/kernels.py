@@ -54,16 +54,17 @@ _FORM_CACHE = {}
 def monomial_form(matrix):
     """(perm, signs) with R[perm[i], i] = signs[i] when R is a signed permutation, else None.
 
-    R maps basis vector e_i to signs[i] * e_perm[i].  Results are cached per matrix.
+    R maps basis vector e_i to signs[i] * e_perm[i].  ``matrix`` is a 3x3 exact
+    matrix or an Operation (then its key is the cache key).  Results are cached.
     """
-    key = ("m", tuple(sp.ImmutableMatrix(matrix)))
+    key = ("m", matrix.key if hasattr(matrix, "key") else tuple(sp.ImmutableMatrix(matrix)))
     if key not in _FORM_CACHE:
         _FORM_CACHE[key] = _monomial_form(matrix)
     return _FORM_CACHE[key]
 
 
 def _monomial_form(matrix):
-    m = sp.Matrix(matrix)
+    m = sp.Matrix(getattr(matrix, "matrix", matrix))
     perm, signs = [None] * 3, [0] * 3
     for i in range(3):
         col = [m[r, i] for r in range(3)]
@@ -77,15 +78,17 @@ def _monomial_form(matrix):
 
 def monomial_action(orbits, perm, signs):
     """For each orbit o, (o', s) with R.E_o = s E_o' for a signed permutation R."""
-    out = []
-    for rep in orbits.reps:
-        img = tuple(perm[i] for i in rep)
-        s = 1
-        for i in rep:
-            s *= signs[i]
-        o2, s2 = orbits.locate(img)
-        out.append((o2, s * s2))
-    return out
+    reps = _rep_array(orbits)
+    if orbits.rank == 0:
+        return [(0, 1)]
+    p = np.asarray(perm, dtype=np.int64)
+    sg = np.asarray(signs, dtype=np.int64)
+    img = p[reps]
+    s = np.prod(sg[reps], axis=1)
+    flat = img @ orbits.weights
+    o2 = orbits.orbit_of[flat]
+    s2 = orbits.sign_of[flat] * s
+    return list(zip(o2.tolist(), s2.tolist()))
 
 
 def quadratic_form(matrix):
@@ -94,14 +97,14 @@ def quadratic_form(matrix):
     d is 1 for a rational matrix (then B is zero).  Results are cached per matrix
     (the arrays handed out are read-only).
     """
-    key = ("q", tuple(sp.ImmutableMatrix(matrix)))
+    key = ("q", matrix.key if hasattr(matrix, "key") else tuple(sp.ImmutableMatrix(matrix)))
     if key not in _FORM_CACHE:
         _FORM_CACHE[key] = _quadratic_form(matrix)
     return _FORM_CACHE[key]
 
 
 def _quadratic_form(matrix):
-    entries = list(sp.Matrix(matrix))
+    entries = list(sp.Matrix(getattr(matrix, "matrix", matrix)))
     d = quadratic_field(entries)
     if d is None:
         return None

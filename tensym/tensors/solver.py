@@ -128,7 +128,7 @@ def _galois_stable_uncached(group, d):
     ops = group.operations
     keys = {op.key for op in ops}
     for op in ops:
-        q = quadratic_form(op.matrix)
+        q = quadratic_form(op)
         if q is None:
             return False
         dd, den, A, B = q
@@ -332,7 +332,7 @@ def solve_invariants(spec, group, factors=None, priority=None):
     dense = []
     for g in group.generators:
         par = spec.parity(g)
-        mono = monomial_form(g.matrix)
+        mono = monomial_form(g)
         if mono is not None:
             for o, (o2, s) in enumerate(monomial_action(orb, *mono)):
                 # t_{o2} = s * par * t_o  ->  v_{o2} = s * par * f_o / f_{o2} * v_o
@@ -350,7 +350,7 @@ def solve_invariants(spec, group, factors=None, priority=None):
     field_d = 1
     quads, general = [], []
     for g, par in dense:
-        q = quadratic_form(g.matrix)
+        q = quadratic_form(g)
         if q is None or (q[0] != 1 and field_d not in (1, q[0])):
             general.append((g, par))
             continue

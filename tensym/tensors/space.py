@@ -44,13 +44,13 @@ class TensorSpace(Space):
         orb = self.spec.orbits
         n = len(orb.reps)
         par = self.spec.parity(op)
-        mono = monomial_form(op.matrix)
+        mono = monomial_form(op)
         if mono is not None:
             M = sp.zeros(n, n)
             for o, (o2, s) in enumerate(monomial_action(orb, *mono)):
                 M[o2, o] = s * par
             return sp.ImmutableMatrix(M)
-        q = quadratic_form(op.matrix)
+        q = quadratic_form(op)
         if q is not None:
             d, den, _, _ = q
             A, B = quadratic_action(orb, q)
