@@ -35,6 +35,7 @@ from functools import lru_cache
 from math import comb, factorial
 
 import sympy as sp
+from sympy.polys.matrices import DomainMatrix
 
 from tensym.errors import InvalidOptionError, RepresentationError
 from tensym.reps.space import Space
@@ -80,23 +81,40 @@ def _poly_coords(expr, n, what="polynomial"):
 
 
 @lru_cache(maxsize=4096)
-def _monomial_action(matrix_key, matrix, n):
-    """Matrix of f -> f(g^-1 r) on degree-n monomials (sympy ImmutableMatrix)."""
-    m = sp.Matrix(matrix)
-    # x_i o g^-1 = sum_j (g^-1)_{ij} x_j = sum_j g_{ji} x_j (orthogonal g)
-    lin = [sp.Poly(sum(m[j, i] * _XYZ[j] for j in range(3)), *_XYZ) for i in range(3)]
-    powers = [[sp.Poly(1, *_XYZ)] for _ in range(3)]
+def _monomial_action_dm(matrix_key, matrix, n):
+    """DomainMatrix of f -> f(g^-1 r) on degree-n monomials, over the field of the entries."""
+    from tensym.reps.linalg import to_dm
+
+    dm = to_dm(matrix)
+    K = dm.domain
+    m = dm.to_list()
+    zero = K.zero
+    # linear forms x_i o g^-1 = sum_j g_{ji} x_j, as dicts exponent -> coefficient
+    units = ((1, 0, 0), (0, 1, 0), (0, 0, 1))
+    lin = [{units[j]: m[j][i] for j in range(3) if m[j][i] != zero} for i in range(3)]
+
+    def mul(p, q):
+        out = {}
+        for e1, c1 in p.items():
+            for e2, c2 in q.items():
+                e = (e1[0] + e2[0], e1[1] + e2[1], e1[2] + e2[2])
+                out[e] = out.get(e, zero) + c1 * c2
+        return out
+
+    powers = [[{(0, 0, 0): K.one}] for _ in range(3)]
     for i in range(3):
         for _k in range(n):
-            powers[i].append(powers[i][-1] * lin[i])
+            powers[i].append(mul(powers[i][-1], lin[i]))
     idx = _monomial_index(n)
     mons = monomials(n)
-    out = sp.zeros(len(mons), len(mons))
+    N = len(mons)
+    rows = [[zero] * N for _ in range(N)]
     for col, (a, b, c) in enumerate(mons):
-        img = powers[0][a] * powers[1][b] * powers[2][c]
-        for mono, coeff in img.terms():
-            out[idx[mono], col] = sp.expand(coeff)
-    return sp.ImmutableMatrix(out)
+        img = mul(mul(powers[0][a], powers[1][b]), powers[2][c])
+        for e, v in img.items():
+            if v != zero:
+                rows[idx[e]][col] = v
+    return DomainMatrix(rows, (N, N), K)
 
 
 def _fischer(n):
@@ -166,7 +184,12 @@ class PolynomialSpace(Space):
         return len(self.basis)
 
     def action(self, op):
-        return _monomial_action(op.key, op.matrix, self.degree)
+        from tensym.reps.linalg import to_sympy_matrix
+
+        return to_sympy_matrix(self._action_dm(op))
+
+    def _action_dm(self, op):
+        return _monomial_action_dm(op.key, op.matrix, self.degree)
 
     def lie_action(self, generator):
         return _monomial_lie(sp.ImmutableMatrix(generator), self.degree)
@@ -270,6 +293,7 @@ class HarmonicSpace(Space):
         self.basis = harmonic_basis(l)
         self._H = sp.Matrix([_poly_coords(b, l, "harmonic") for b in self.basis]).T
         self._pinv = None
+        self._dm = None
 
     @property
     def dim(self):
@@ -288,7 +312,14 @@ class HarmonicSpace(Space):
         return self._pinv
 
     def action(self, op):
-        return _harmonic_action(self.l, op.key, op.matrix, self.parity_sign if op.det == -1 else 1)
+        # the substitution f(g^-1 r) already gives (-1)^l for the inversion
+        from tensym.reps.linalg import to_sympy_matrix
+
+        return to_sympy_matrix(self._action_dm(op))
+
+    def _action_dm(self, op):
+        sign = self.parity_sign * (-1) ** self.l if op.det == -1 else 1
+        return _harmonic_action_dm(self.l, op.key, op.matrix, sign)
 
     def lie_action(self, generator):
         M = _monomial_lie(sp.ImmutableMatrix(generator), self.l)
@@ -322,13 +353,19 @@ class HarmonicSpace(Space):
 
 
 @lru_cache(maxsize=8192)
-def _harmonic_action(l, key, matrix, sign):
+def _harmonic_action_dm(l, key, matrix, sign):
+    from sympy.polys.matrices import DomainMatrix
+
     h = harmonics(l)
-    M = _monomial_action(key, matrix, l)
-    D = (h._left_inverse() * M * h._H).applyfunc(sp.expand)
+    M = _monomial_action_dm(key, matrix, l)
+    K = M.domain
+    if h._dm is None:
+        h._dm = (DomainMatrix.from_Matrix(sp.Matrix(h._left_inverse())), DomainMatrix.from_Matrix(h._H))
+    L, H = h._dm
+    D = L.convert_to(K) * M * H.convert_to(K)
     if sign != 1:
         D = -D
-    return sp.ImmutableMatrix(D)
+    return D
 
 
 @lru_cache(maxsize=None)

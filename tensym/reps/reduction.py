@@ -1,0 +1,110 @@
+"""The reduction formula: multiplicities of irreps in a representation (private kernel).
+
+n(Gamma) = (1/|G|) sum over classes C of |C| chi_V(g_C) conj(chi_Gamma(g_C)).
+
+Space characters are exact sympy numbers.  When they are all rational the sum
+is done in exact cyclotomic arithmetic; otherwise in sympy, and the result,
+which must be a non-negative integer, is simplified until it is one (a
+50-digit evaluation confirms the integer when sympy cannot finish the
+simplification, and a non-integer raises).
+
+Examples
+--------
+>>> from tensym.groups import point_group
+>>> from tensym.reps.table import finite_table
+>>> from tensym.reps.spaces import harmonics
+>>> t = finite_table(point_group("m-3m"))
+>>> m = multiplicities(t, space_characters(harmonics(2), t))
+>>> {k: v for k, v in m.items() if v}
+{'Eg': 1, 'T2g': 1}
+"""
+
+from fractions import Fraction
+
+import sympy as sp
+
+from tensym.errors import RepresentationError
+from tensym.reps.cyclotomic import Cyclotomic
+
+__all__ = ["space_characters", "multiplicities", "to_int"]
+
+
+def space_characters(space, table):
+    """Exact characters of ``space`` at one representative of each class (table order)."""
+    out = []
+    for c in table.classes:
+        v = sp.sympify(space.character(c.representative))
+        out.append(v)
+    return tuple(out)
+
+
+def to_int(value, what="multiplicity"):
+    """An exact sympy number that must be an integer, as int (else ArithmeticError)."""
+    v = sp.nsimplify(sp.expand(value)) if not isinstance(value, (int, sp.Integer)) else value
+    if not (isinstance(v, int) or v.is_Integer):
+        v2 = sp.simplify(v)
+        if v2.is_Integer:
+            v = v2
+        else:
+            num = sp.N(v, 50)
+            re, im = num.as_real_imag()
+            k = int(sp.Integer(round(float(re))))
+            if abs(re - k) > sp.Float(10) ** -40 or abs(im) > sp.Float(10) ** -40:
+                raise ArithmeticError(f"{what} {value} is not an integer")
+            v = k
+    return int(v)
+
+
+def multiplicities(table, chars, *, real=True):
+    """Mapping label -> multiplicity (int) of the table's irreps in characters ``chars``.
+
+    ``real=True`` uses :attr:`CharacterTable.real_irreps` (complex pairs combined),
+    ``real=False`` the complex irreps.
+    """
+    irreps = table.irreps
+    sizes = [c.size for c in table.classes]
+    order = table.order
+    rational = all(sp.sympify(v).is_Rational for v in chars)
+    out = {}
+    for irr in irreps:
+        if rational:
+            row = table._cyclo(irr.label)
+            n = row[0].n
+            total = Cyclotomic.rational(0, n)
+            for s, v, x in zip(sizes, chars, row):
+                q = Fraction(int(sp.Rational(v).p), int(sp.Rational(v).q)) * s
+                total = total + x.conjugate() * q
+            val = total / order
+            if not val.is_rational:
+                raise ArithmeticError(f"multiplicity of {irr.label} is not rational: {val.to_sympy()}")
+            q = val.rational_value()
+            if q.denominator != 1:
+                raise RepresentationError(
+                    f"the characters are not those of a representation of the group "
+                    f"(multiplicity of {irr.label} would be {q})"
+                )
+            m = int(q)
+        else:
+            total = sp.Integer(0)
+            for s, v, x in zip(sizes, chars, irr.characters):
+                total += s * v * sp.conjugate(x)
+            m = to_int(sp.expand(total / order), f"multiplicity of {irr.label}")
+        if m < 0:
+            raise RepresentationError(f"negative multiplicity {m} of {irr.label}: not a representation")
+        out[irr.label] = m
+    if not real:
+        return out
+    combined = {}
+    for irr in table.real_irreps:
+        if irr.label in out:
+            combined[irr.label] = out[irr.label]
+            continue
+        members = [i.label for i in table.irreps if i.real_label == irr.label]
+        counts = {out[m] for m in members}
+        if len(counts) != 1:
+            raise RepresentationError(
+                f"the space holds the complex irreps {members} unequally ({[out[m] for m in members]}), so it is "
+                "not a real representation; decompose it with real=False"
+            )
+        combined[irr.label] = counts.pop()
+    return combined
