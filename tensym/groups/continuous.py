@@ -76,6 +76,10 @@ class ContinuousGroup:
     crystal_system = property(lambda self: self._names.crystal_system, doc="'continuous'.")
     laue_class = property(lambda self: self._names.laue_class, doc="Symbol of the Laue class.")
     setting = property(lambda self: self._names.setting, doc="Orientation in words.")
+    setting_symbol = property(lambda self: self._names.setting_symbol, doc="Catalog key, e.g. 'inf/mm'.")
+    rotation = property(lambda self: self._names.rotation,
+                        doc="Q relating this orientation to the standard one (None for the standard setting).")
+    is_crystallographic = False
     is_centrosymmetric = property(lambda self: self._centro, doc="Contains the inversion.")
     is_polar = property(lambda self: self._polar, doc="Leaves a direction fixed.")
     is_enantiomorphic = property(lambda self: self._proper, doc="Only proper operations.")
@@ -138,7 +142,7 @@ def continuous_group(symbol):
     if key not in _CACHE:
         hm, sch, lie, disc, centro, polar, proper, laue, setting, _ = _TABLE[key]
         names = GroupNames(hm=hm, full_hm=hm, schoenflies=sch, setting=setting,
-                           crystal_system="continuous", laue_class=laue)
+                           crystal_system="continuous", laue_class=laue, setting_symbol=key)
         gens = [Operation.from_triplet(t) for t in disc]
         _CACHE[key] = ContinuousGroup(lie, gens, names, centro=centro, polar=polar, proper=proper)
     return _CACHE[key]

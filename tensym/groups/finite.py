@@ -19,10 +19,10 @@ import math
 
 import numpy as np
 import sympy as sp
-from sympy.external.gmpy import MPQ
 
 from tensym.errors import GroupClosureError, InvalidOperationError
 from tensym.groups.operations import ORDER_SEARCH_LIMIT, Operation
+from tensym.groups.quadratic import mq_matmul as _mq_matmul, mq_matrix as _mq_matrix, mq_sympy as _mq_sympy
 
 __all__ = ["PointGroup", "MAX_GROUP_ORDER", "GroupNames"]
 
@@ -70,88 +70,6 @@ class GroupNames:
     setting_symbol: str = ""
 
 
-# --- exact products in a multi-quadratic field --------------------------------------
-# An entry a_1 sqrt(s_1) + ... (rational a_i, square-free integers s_i) is a dict
-# {s_i: a_i}; such numbers are closed under products (sqrt(s) sqrt(t) = g sqrt(st/g^2),
-# g = gcd(s, t)), which covers every catalog setting (sqrt(3), sqrt(5)) and their
-# re-orientations by rotations with entries like sqrt(2)/2 or sqrt(6)/3.  Entries of
-# any other form fall back to sympy products.
-
-
-def _mq_entry(x):
-    out = {}
-    for term in sp.Add.make_args(x):
-        if term.is_Rational:
-            out[1] = out.get(1, 0) + MPQ(int(term.p), int(term.q))
-            continue
-        coeff, rest = term.as_coeff_Mul()
-        if not (coeff.is_Rational and rest.is_Pow and rest.exp == sp.S.Half and rest.base.is_Integer
-                and rest.base > 1):
-            return None
-        b = int(rest.base)
-        out[b] = out.get(b, 0) + MPQ(int(coeff.p), int(coeff.q))
-    return {k: v for k, v in out.items() if v}
-
-
-def _mq_matrix(m):
-    rows = []
-    for i in range(3):
-        row = []
-        for j in range(3):
-            e = _mq_entry(m[i, j])
-            if e is None:
-                return None
-            row.append(e)
-        rows.append(row)
-    return rows
-
-
-def _mq_mul(a, b):
-    out = {}
-    for s, x in a.items():
-        for t, y in b.items():
-            g = math.gcd(s, t)
-            r = (s // g) * (t // g)
-            out[r] = out.get(r, 0) + x * y * g
-    return out
-
-
-def _mq_matmul(a, b):
-    res = []
-    for i in range(3):
-        row = []
-        for j in range(3):
-            acc = {}
-            for k in range(3):
-                for r, v in _mq_mul(a[i][k], b[k][j]).items():
-                    acc[r] = acc.get(r, 0) + v
-            row.append({r: v for r, v in acc.items() if v})
-        res.append(row)
-    return res
-
-
-_SQRT = {}
-
-
-def _mq_sympy(rows, num):
-    vals = []
-    for row in rows:
-        for e in row:
-            terms = []
-            for r in sorted(e):
-                c = e[r]
-                q = sp.Rational(int(c.numerator), int(c.denominator))
-                if r == 1:
-                    terms.append(q)
-                else:
-                    root = _SQRT.get(r)
-                    if root is None:
-                        root = _SQRT[r] = sp.sqrt(r)
-                    terms.append(q * root)
-            vals.append(sp.Add(*terms) if terms else sp.Integer(0))
-    return sp.ImmutableMatrix(3, 3, vals)
-
-
 def _trusted(matrix, flag, num):
     """An Operation from an exact matrix and its known float image (no checks)."""
     op = object.__new__(Operation)
@@ -174,7 +92,7 @@ def _conjugate_all(ops, rotation):
             out.append(op.conjugated(q))
             continue
         num = qn @ op._num @ qn.T
-        out.append(_trusted(_mq_sympy(_mq_matmul(_mq_matmul(qm, m), qt), num), op.time_reversal, num))
+        out.append(_trusted(_mq_sympy(_mq_matmul(_mq_matmul(qm, m), qt)), op.time_reversal, num))
     return out
 
 
@@ -206,7 +124,7 @@ def _close(generators, limit):
                 if fast:
                     rows = _mq_matmul(gen_mq[gi], mqs[i])
                     mqs.append(rows)
-                    op = _trusted(_mq_sympy(rows, prod), flag, prod)
+                    op = _trusted(_mq_sympy(rows), flag, prod)
                 else:
                     op = generators[gi] @ ops[i]
                 index[key] = len(ops)

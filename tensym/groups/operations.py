@@ -34,6 +34,7 @@ import sympy as sp
 
 from tensym.errors import InvalidOperationError
 from tensym.exact.matrices import exact_matrix, float_key, is_orthogonal, matmul, to_float
+from tensym.groups.quadratic import is_orthogonal_mq, mq_entry, mq_matrix
 
 __all__ = ["Operation", "HEXAGONAL_BASIS", "ORDER_SEARCH_LIMIT"]
 
@@ -93,6 +94,14 @@ def _parse_algebraic(text):
     if sp.expand(expr - sum(c * v for c, v in zip(row, _XYZ))) != 0:
         return None
     return row
+
+
+def _orthogonal(m):
+    """Exact orthogonality test, with the multi-quadratic kernel where the entries allow."""
+    q = mq_matrix(m)
+    if q is not None:
+        return is_orthogonal_mq(q)
+    return is_orthogonal(m)
 
 
 def proper_order(p):
@@ -175,7 +184,7 @@ class Operation:
                     raise InvalidOperationError(f"cannot read matrix entry {v!r}") from exc
             rows.append(out)
         m = exact_matrix(rows)
-        if check and not is_orthogonal(m):
+        if check and not _orthogonal(m):
             raise InvalidOperationError(f"matrix {m.tolist()} is not orthogonal (R R^T != 1)")
         return cls(m, bool(time_reversal))
 
@@ -215,7 +224,7 @@ class Operation:
         if basis == "hexagonal":
             w = HEXAGONAL_BASIS * w * _HEX_INV
         m = exact_matrix(w)
-        if not is_orthogonal(m):
+        if not _orthogonal(m):
             raise InvalidOperationError(
                 f"triplet {text!r} ({basis} basis) is not an orthogonal operation in Cartesian axes"
                 + ("" if basis == "hexagonal" else "; for a hexagonal-basis triplet pass basis='hexagonal'")
@@ -423,12 +432,16 @@ class Operation:
             raise InvalidOperationError(f"basis {basis!r} is not one of {_BASES}")
         m = sp.Matrix(self.matrix)
         if basis == "hexagonal":
-            m = (_HEX_INV * m * HEXAGONAL_BASIS).applyfunc(sp.nsimplify)
+            m = (_HEX_INV * m * HEXAGONAL_BASIS).applyfunc(lambda e: sp.expand(sp.radsimp(e)))
         parts = []
         for i in range(3):
             terms = []
             for j, var in enumerate("xyz"):
-                c = sp.nsimplify(sp.simplify(m[i, j]))
+                c = m[i, j]
+                if not c.is_Rational:
+                    c = sp.expand(sp.radsimp(c))
+                    if not c.is_Rational and mq_entry(c) is None:
+                        c = sp.nsimplify(sp.simplify(c))
                 if c == 0:
                     continue
                 if c == 1:

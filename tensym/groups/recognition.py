@@ -200,11 +200,19 @@ def _find_rotation(std_ops, user_ops):
     return None
 
 
+def _nested(x):
+    return any(not p.base.is_Rational for p in x.atoms(sp.Pow) if p.exp == sp.S.Half)
+
+
 def _clean(x):
+    """Canonical exact entry: expanded, radicals out of denominators, nested roots undone where possible."""
     x = sp.expand(sp.sympify(x))
     if x.is_Rational:
         return x
-    return sp.expand(sp.radsimp(x))
+    x = sp.expand(sp.radsimp(x))
+    if _nested(x):
+        x = sp.expand(sp.radsimp(sp.sqrtdenest(x)))
+    return x
 
 
 def _unit_axis_exact(op, sign_ref):

@@ -16,7 +16,9 @@ Accepted spellings (see :func:`point_group`):
   with subscript digits allowed (``'D₄h'``) and any letter case where this
   is unambiguous (``'d4h'``);
 * the continuous groups of :mod:`tensym.groups.continuous`: ``'SO(3)'``,
-  ``'O(3)'``, ``'Cinf'``, ``'C∞v'``, ``'Dinfh'``, ``'inf/mm'``, ...
+  ``'O(3)'``, ``'Cinf'``, ``'C∞v'``, ``'Dinfh'``, ``'inf/mm'``, ...;
+* magnetic symbols (a prime, ``"m'm'm"``, or Schoenflies ``'D2h(C2h)'``) go to
+  :mod:`tensym.groups.magnetic`.
 
 A class symbol names the default setting of its class (``'2'`` is ``'121'``,
 ``'32'`` is ``'321'``, ``'3m'`` is ``'3m1'``, ``'C2v'`` is ``'mm2'``).
@@ -145,6 +147,15 @@ def _nearest(text, n=5):
     return [by_lower[h] for h in hits]
 
 
+def _magnetic_lookup():
+    """The magnetic-symbol factory of :mod:`tensym.groups.magnetic`, when that module is present."""
+    try:
+        from tensym.groups.magnetic import magnetic_point_group
+    except ImportError:  # pragma: no cover - the magnetic module is optional here
+        return None
+    return magnetic_point_group
+
+
 def point_group(symbol):
     """The named group for a symbol (cached: the same object on every call).
 
@@ -177,6 +188,9 @@ def point_group(symbol):
             f"a group symbol must be a string such as '4/mmm' or 'D4h', got {type(symbol).__name__} {symbol!r}"
         )
     key = normalise_symbol(symbol)
+    magnetic = _magnetic_lookup()
+    if magnetic is not None and "'" in key:
+        return magnetic(symbol)
     target = _EXACT.get(key) or _LOWER.get(key.lower())
     if target is not None:
         return catalog_group(target)
@@ -184,6 +198,8 @@ def point_group(symbol):
     cont = CONTINUOUS_SYMBOLS.get(raw) or _CONT_NORMAL.get(key.lower())
     if cont is not None:
         return continuous_group(cont)
+    if magnetic is not None and "(" in key and key.lower() not in ("so(3)", "o(3)"):
+        return magnetic(symbol)
     near = ", ".join(repr(s) for s in _nearest(symbol))
     raise UnknownGroupError(
         f"unknown point-group symbol {symbol!r}; nearest valid symbols: {near} "
