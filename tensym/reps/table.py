@@ -28,7 +28,7 @@ from tensym.reps.characters import class_data, exact_characters
 from tensym.reps.cyclotomic import Cyclotomic
 from tensym.reps.labels import label_irreps, name_classes
 
-__all__ = ["ConjugacyClass", "Irrep", "CharacterTable", "finite_table", "group_key"]
+__all__ = ["ConjugacyClass", "Irrep", "CharacterTable", "character_table", "finite_table", "group_key"]
 
 
 @dataclass(frozen=True)
@@ -373,3 +373,58 @@ def finite_table(group):
     table = CharacterTable(group, classes, irreps, cyc, data, info)
     _CACHE[key] = table
     return table
+
+
+def character_table(group, *, up_to=4):
+    """The exact character table of a point group.
+
+    Parameters
+    ----------
+    group : PointGroup, ContinuousGroup or str
+        A group or its symbol (``'3m'``, ``'C3v'``, ``'Oh'``, ``'Ih'``, ``'O(3)'``, ``'Dinfh'``).
+    up_to : int, keyword-only
+        For a continuous group only: the largest l (SO(3), O(3)) or |m| (axial
+        groups) shown; its irreps are infinitely many.
+
+    Returns
+    -------
+    CharacterTable or ContinuousTable
+        Computed from the group (see Notes) and cached per group setting.
+
+    Raises
+    ------
+    UnknownGroupError, InvalidGroupError
+        For a bad group argument.
+    InvalidOptionError
+        If ``up_to`` is not a non-negative integer.
+
+    Notes
+    -----
+    Finite groups: Burnside's class-algebra method with exact pinning of every
+    value (module :mod:`tensym.reps.characters`), class names and Mulliken
+    labels as described in :mod:`tensym.reps.labels`.  The 32 crystallographic
+    tables together take a few seconds the first time.
+
+    Examples
+    --------
+    >>> t = character_table("3m")
+    >>> print(t)
+    3m  E  2C3  3σv
+    ---------------
+    A1  1    1    1
+    A2  1    1   -1
+    E   2   -1    0
+    >>> character_table("Oh").irrep("T2g").characters[:5]
+    (3, 0, -1, -1, 1)
+    """
+    from tensym.reps.inputs import as_group_arg
+
+    G = as_group_arg(group)
+    if getattr(G, "is_continuous", False):
+        from tensym.errors import InvalidOptionError
+        from tensym.reps.continuous import continuous_table
+
+        if isinstance(up_to, bool) or not isinstance(up_to, int) or up_to < 0:
+            raise InvalidOptionError(f"up_to must be a non-negative integer, got {up_to!r}")
+        return continuous_table(G, up_to)
+    return finite_table(G)

@@ -1,0 +1,47 @@
+"""Validation of the arguments of the public representation functions (private).
+
+Examples
+--------
+>>> as_group_arg("4mm").order
+8
+"""
+
+from tensym.errors import InvalidArgumentError, InvalidGroupError, InvalidOptionError
+from tensym.reps.space import Space
+
+__all__ = ["as_group_arg", "as_space_arg", "check_option"]
+
+
+def as_group_arg(group, name="group"):
+    """A group object from a group or its symbol (tensym.groups.as_group)."""
+    from tensym.groups import as_group
+
+    try:
+        return as_group(group)
+    except InvalidGroupError as exc:
+        raise InvalidGroupError(f"{name}: {exc}") from exc
+
+
+def as_space_arg(obj, name="space"):
+    """A Space from a Space or an object with ``as_space()`` (TensorSpec, catalog property)."""
+    if isinstance(obj, Space):
+        return obj
+    conv = getattr(obj, "as_space", None)
+    if callable(conv):
+        sp_ = conv()
+        if isinstance(sp_, Space):
+            return sp_
+    spec = getattr(obj, "spec", None)  # a catalog Property carries its TensorSpec
+    if spec is not None and callable(getattr(spec, "as_space", None)):
+        return spec.as_space()
+    raise InvalidArgumentError(
+        f"{name}: expected a representation space (tensym.harmonics(l), tensym.polynomials(n), an irrep "
+        f"product, a TensorSpec or a catalog property), got {type(obj).__name__} {obj!r}"
+    )
+
+
+def check_option(name, value, allowed):
+    """Raise InvalidOptionError unless ``value`` is one of ``allowed``."""
+    if value not in allowed:
+        raise InvalidOptionError(f"{name}={value!r} is not one of {', '.join(repr(a) for a in allowed)}")
+    return value
