@@ -193,23 +193,52 @@ _WHICH = ("crystallographic", "settings", "icosahedral", "all")
 _CACHE = {}
 
 
-def settings_table():
-    """The settings table: a tuple of frozen :class:`Setting` rows in catalog order.
+_FORMATS = ("rows", "markdown")
+
+
+def settings_table(*, format="rows"):
+    """The settings table: every named group with its orientation.
+
+    Parameters
+    ----------
+    format : {'rows', 'markdown'}
+        'rows': the tuple of frozen :class:`Setting` rows in catalog order (the
+        order of :func:`point_groups` with ``which='all'``); 'markdown': the same
+        table as Markdown text (setting symbol, class, full symbol, Schoenflies,
+        crystal system, Laue class, generators, orientation), as in the README.
 
     Returns
     -------
-    tuple of Setting
-        Every named group (the 32 classes in their default settings, their other
-        settings, and the icosahedral groups), in the order of :func:`point_groups`
-        with ``which='all'``.
+    tuple of Setting, or str
+
+    Raises
+    ------
+    InvalidOptionError
+        If ``format`` is not one of the names above.
 
     Examples
     --------
     >>> row = [s for s in settings_table() if s.symbol == "3m1"][0]
     >>> row.hm, row.setting
     ('3m', '3-fold along z, a mirror normal to x')
+    >>> settings_table(format="markdown").splitlines()[0]
+    '| setting | class | full symbol | Schoenflies | system | Laue | generators | orientation |'
     """
-    return SETTINGS
+    if format == "rows":
+        return SETTINGS
+    if format == "markdown":
+        lines = ["| setting | class | full symbol | Schoenflies | system | Laue | generators | orientation |",
+                 "| --- | --- | --- | --- | --- | --- | --- | --- |"]
+        for r in SETTINGS:
+            gens = "; ".join("2-fold about (phi, 1, 1/phi)/2" if g.startswith("rows:") else f"`{g}`"
+                             for g in r.generators) or "-"
+            if r.basis == "hexagonal":
+                gens += " (hexagonal basis)"
+            mark = "" if r.default else " (other setting)"
+            lines.append(f"| `{r.symbol}` | {r.hm} | {r.full_hm} | {r.schoenflies} | {r.crystal_system} | "
+                         f"{r.laue_class} | {gens} | {r.setting}{mark} |")
+        return "\n".join(lines) + "\n"
+    raise InvalidOptionError(f"format={format!r} is not one of {_FORMATS}")
 
 
 def point_groups(*, which="crystallographic"):

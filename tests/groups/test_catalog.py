@@ -209,3 +209,13 @@ def test_operations_equal_spglib_rotations(setting):
     ours = {tuple(np.rint(op.numeric.ravel() * 1e8).astype(int)) for op in g.operations}
     assert len(rots) == g.order
     assert ours == theirs
+
+
+def test_settings_table_as_markdown():
+    text = settings_table(format="markdown")
+    lines = text.splitlines()
+    assert len(lines) == 2 + len(settings_table())
+    for row, line in zip(settings_table(), lines[2:]):
+        assert line.startswith(f"| `{row.symbol}` | {row.hm} |") and row.setting in line
+    with pytest.raises(InvalidOptionError, match="markdown"):
+        settings_table(format="latex")
