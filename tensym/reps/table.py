@@ -262,10 +262,34 @@ class CharacterTable:
         """
         irr = self.irrep(label)
         if irr.label not in self._matrices:
-            from tensym.reps.irreps import build_matrices
+            std = self._standard_copy()
+            if std is not None:
+                self._matrices[irr.label] = std.matrices(irr.label)
+            else:
+                from tensym.reps.irreps import build_matrices
 
-            self._matrices[irr.label] = build_matrices(self, irr)
+                self._matrices[irr.label] = build_matrices(self, irr)
         return self._matrices[irr.label]
+
+    def _standard_copy(self):
+        """For a re-oriented group: the table of the same elements turned back to the standard frame.
+
+        Irrep matrices are taken from it (g -> D(Q^T g Q)), so that a re-oriented
+        group has the same, readable, matrices as its standard setting.
+        """
+        names = getattr(self._group, "names", None)
+        q = getattr(names, "rotation", None)
+        if q is None:
+            return None
+        from dataclasses import replace
+
+        from tensym.groups.finite import PointGroup
+
+        qt = sp.Matrix(q).T
+        ops = [op.conjugated(qt) for op in self._group.operations]
+        gens = [op.conjugated(qt) for op in self._group.generators]
+        std = PointGroup(ops, gens, replace(names, rotation=None))
+        return finite_table(std)
 
     # --- display ---------------------------------------------------------
     def _cells(self, irreps):

@@ -1,0 +1,427 @@
+"""Projection operators and symmetry-adapted bases.
+
+Conventions
+-----------
+* Functions transform actively, ``(g f)(r) = f(g^-1 r)``; a tensor as
+  ``(g T)_{i..} = R_{ia} ... T_{a..}`` (times det R when ``axial=True``).
+* The character projector of an irrep Gamma of dimension d is
+  ``P = (d/|G|) sum_g conj(chi(g)) g``; it is idempotent and the projectors of
+  all irreps add up to the identity.
+* Partner sets come from the projectors with matrix elements,
+  ``P_ij = (d/|G|) sum_g conj(D_ij(g)) g``: for u in the image of P_11 the
+  functions f_i = P_i1 u transform as ``g f_j = sum_i D_ij(g) f_i`` with the
+  irrep matrices of :meth:`CharacterTable.matrices`.  The image of P_11 is
+  given an orthonormal basis (Gram-Schmidt in the space's inner product,
+  :meth:`Space.gram`), so all partner functions together are orthonormal.
+
+Examples
+--------
+>>> import sympy as sp
+>>> x, y, z = sp.symbols("x y z")
+>>> project(x**2, "m-3m", "Eg")
+2*x**2/3 - y**2/3 - z**2/3
+"""
+
+from dataclasses import dataclass, field
+
+import numpy as np
+import sympy as sp
+from sympy.polys.matrices import DomainMatrix
+
+from tensym.errors import InvalidArgumentError, RepresentationError
+from tensym.reps.inputs import as_group_arg, as_space_arg
+from tensym.reps.linalg import generator_data, orbit, to_dm, unify
+from tensym.reps.spaces import X, Y, Z, harmonics, monomials
+
+__all__ = ["project", "symmetry_adapted", "SymmetryAdaptedBasis", "PartnerSet", "readable"]
+
+
+def _transform_expr(expr, op):
+    m = op.matrix
+    sub = {v: sum(m[j, i] * w for j, w in enumerate((X, Y, Z))) for i, v in enumerate((X, Y, Z))}
+    return expr.xreplace(sub)
+
+
+def _transform_array(arr, op, axial):
+    R = np.array(op.matrix.tolist(), dtype=object)
+    T = np.array(arr.tolist(), dtype=object)
+    for k in range(T.ndim):
+        T = np.moveaxis(np.tensordot(R, T, axes=([1], [k])), 0, k)
+    if axial and op.det == -1:
+        T = -T
+    return T
+
+
+def project(obj, group, irrep, *, axial=False):
+    """Apply the character projection operator of an irrep to a function or a tensor.
+
+    Parameters
+    ----------
+    obj : sympy expression in x, y, z, or sympy Array / Matrix (a Cartesian tensor)
+        Other symbols are treated as constants.
+    group : PointGroup, ContinuousGroup or str
+        Finite groups; and SO(3) / O(3) for polynomials (the D^l part of a
+        polynomial, by the harmonic decomposition f = sum r^(2k) h_(n-2k)).
+    irrep : str
+        An irrep label of the group: a real form (``'E'``) projects onto the sum
+        of a complex pair, a member (``'1E'``) onto that member alone.
+    axial : bool, keyword-only
+        For tensors: transform with det(R) R (a pseudo-tensor).
+
+    Returns
+    -------
+    sympy expression or sympy ImmutableDenseNDimArray
+        The projection, expanded.
+
+    Raises
+    ------
+    UnknownIrrepError
+        For a label the group does not have (the message lists the nearest).
+    InvalidArgumentError
+        For an object that is neither an expression nor an array, or a
+        continuous group other than SO(3), O(3).
+
+    Examples
+    --------
+    >>> import sympy as sp
+    >>> x, y, z = sp.symbols("x y z")
+    >>> project(x*y, "m-3m", "T2g")
+    x*y
+    >>> project(x**4, "O(3)", "D0g")
+    x**4/5 + 2*x**2*y**2/5 + 2*x**2*z**2/5 + y**4/5 + 2*y**2*z**2/5 + z**4/5
+    """
+    G = as_group_arg(group)
+    if not isinstance(axial, bool):
+        raise InvalidArgumentError(f"axial must be True or False, got {axial!r}")
+    is_array = isinstance(obj, (sp.NDimArray, sp.MatrixBase, list, tuple))
+    if not is_array:
+        try:
+            expr = sp.sympify(obj)
+        except (sp.SympifyError, TypeError) as exc:
+            raise InvalidArgumentError(
+                f"obj must be a sympy expression in x, y, z or a sympy Array, got {type(obj).__name__}") from exc
+        if not isinstance(expr, sp.Expr):
+            raise InvalidArgumentError(f"obj must be a sympy expression in x, y, z, got {expr!r}")
+    if getattr(G, "is_continuous", False):
+        if is_array:
+            raise InvalidArgumentError("projection of tensors onto continuous-group irreps is not supported; "
+                                       "decompose the TensorSpec instead")
+        return _project_rotation_group(expr, G, irrep)
+    from tensym.reps.table import finite_table
+
+    t = finite_table(G)
+    irr = t.irrep(irrep)
+    chars = {}
+    for c, ch in zip(t.classes, irr.characters):
+        for m in c.indices:
+            chars[m] = sp.conjugate(ch)
+    ops = G.operations
+    scale = sp.Rational(irr.dim, G.order)
+    if is_array:
+        arr = sp.Array(obj)
+        total = None
+        for i, op in enumerate(ops):
+            if chars[i] == 0:
+                continue
+            term = _transform_array(arr, op, axial) * chars[i]
+            total = term if total is None else total + term
+        flat = [sp.expand(v * scale) for v in np.asarray(total).ravel()]
+        return sp.ImmutableDenseNDimArray(flat, arr.shape)
+    total = sp.Integer(0)
+    for i, op in enumerate(ops):
+        if chars[i] != 0:
+            total += chars[i] * _transform_expr(expr, op)
+    return sp.expand(scale * total)
+
+
+def _project_rotation_group(expr, G, irrep):
+    from tensym.reps.continuous import _kind, _parse_label
+
+    core, ext = _kind(G)
+    if core != "SO3":
+        raise InvalidArgumentError(
+            f"projection onto irreps of {G.names.hm} is not supported; use SO(3), O(3) or a finite subgroup")
+    irr = _parse_label(G, irrep)
+    l = irr.m
+    poly = sp.Poly(sp.expand(expr), X, Y, Z)
+    total = sp.Integer(0)
+    by_degree = {}
+    for mono, c in poly.terms():
+        by_degree.setdefault(sum(mono), sp.Integer(0))
+        by_degree[sum(mono)] += c * X ** mono[0] * Y ** mono[1] * Z ** mono[2]
+    for n, part in by_degree.items():
+        if n < l or (n - l) % 2:
+            continue
+        if irr.parity and irr.parity != ("g" if n % 2 == 0 else "u"):
+            continue  # polynomials of degree n have parity (-1)^n
+        total += _harmonic_part(part, n, l)
+    return sp.expand(total)
+
+
+def _harmonic_part(f, n, l):
+    """The r^(n-l) h_l component of a homogeneous polynomial of degree n."""
+    from tensym.reps.spaces import _poly_coords
+
+    basis = []
+    owner = []
+    r2 = X**2 + Y**2 + Z**2
+    for ll in range(n % 2, n + 1, 2):
+        for h in harmonics(ll).basis:
+            basis.append(sp.expand(r2 ** ((n - ll) // 2) * h))
+            owner.append(ll)
+    M = sp.Matrix([_poly_coords(b, n) for b in basis]).T
+    v = sp.Matrix(_poly_coords(f, n))
+    c = M.LUsolve(v)
+    return sp.expand(sum(ci * b for ci, b, o in zip(c, basis, owner) if o == l))
+
+
+# ---------------------------------------------------------------------------
+# symmetry-adapted bases
+# ---------------------------------------------------------------------------
+def readable(expr):
+    """Write an expression as (scalar) * (polynomial with coprime integer coefficients) when it is one.
+
+    Examples
+    --------
+    >>> readable(sp.sqrt(6)/6*X - sp.sqrt(6)/12*Y)
+    sqrt(6)*(2*x - y)/12
+    """
+    e = sp.expand(expr)
+    if e == 0 or not e.free_symbols:
+        return e
+    try:
+        p = sp.Poly(e, *sorted(e.free_symbols, key=str))
+    except sp.PolynomialError:
+        return e
+    coeffs = p.coeffs()
+    lead = coeffs[0]
+    ratios = [sp.nsimplify(sp.radsimp(c / lead)) for c in coeffs]
+    if not all(r.is_Rational for r in ratios):
+        return e
+    den = sp.ilcm(*[r.q for r in ratios]) if len(ratios) > 1 else ratios[0].q
+    ints = [int(r * den) for r in ratios]
+    g = sp.igcd(*ints) if len(ints) > 1 else abs(ints[0])
+    scale = sp.radsimp(lead * g / den)
+    prim = sp.expand(sp.Add(*[sp.Integer(k // g) * m for k, m in zip(ints, [sp.Mul(*[v**k for v, k in zip(p.gens, mono)])
+                                                                             for mono in p.monoms()])]))
+    if scale == 1:
+        return prim
+    return sp.Mul(scale, prim, evaluate=False)
+
+
+@dataclass(frozen=True)
+class PartnerSet:
+    """Partner functions of one copy of an irrep.
+
+    Attributes
+    ----------
+    irrep : str
+        The irrep label.
+    copy : int
+        Which copy (0-based) of the irrep in the space.
+    coordinates : tuple of sympy.ImmutableMatrix
+        Coordinates (column vectors) of the d partners in the space's basis;
+        orthonormal under the space's Gram matrix.
+    elements : tuple
+        The partners as objects of the space (polynomials, sympy Arrays ...)
+        when the space builds elements, else the coordinates.
+    readable : tuple
+        The same written as scalar times a primitive integer polynomial where
+        possible, e.g. ``sqrt(6)*(2*x - y - z)/6``.
+    irrep_latex : str
+        The irrep label in LaTeX.
+    """
+
+    irrep: str
+    copy: int
+    coordinates: tuple = field(repr=False)
+    elements: tuple = ()
+    readable: tuple = ()
+    irrep_latex: str = ""
+
+    def latex(self):
+        """The partners as a LaTeX list."""
+        return ",\\quad ".join(sp.latex(e) for e in self.readable)
+
+
+@dataclass(frozen=True)
+class SymmetryAdaptedBasis:
+    """An orthonormal basis of a space made of partner sets of the group's irreps.
+
+    Attributes
+    ----------
+    group : str
+        Symbol of the group.
+    space : str
+        Description of the space.
+    sets : tuple of PartnerSet
+        All partner sets, by irrep in table order, then by copy.
+    matrix : sympy.ImmutableMatrix
+        All partner coordinates as columns (dim x dim); with the Gram matrix G,
+        ``matrix.T * G * matrix`` is the identity.
+
+    Examples
+    --------
+    >>> from tensym.reps.spaces import polynomials
+    >>> b = symmetry_adapted(polynomials(2), "4mm")
+    >>> [s.irrep for s in b.sets]
+    ['A1', 'A1', 'B1', 'B2', 'E']
+    >>> b["B1"][0].readable
+    (sqrt(2)*(x**2 - y**2)/4,)
+    """
+
+    group: str
+    space: str
+    sets: tuple
+    matrix: object = field(repr=False)
+
+    def __getitem__(self, label):
+        out = tuple(s for s in self.sets if s.irrep == label)
+        if not out:
+            from tensym.errors import UnknownIrrepError
+
+            raise UnknownIrrepError(
+                f"no partner set of {label!r}; the space holds {', '.join(dict.fromkeys(s.irrep for s in self.sets))}")
+        return out
+
+    @property
+    def labels(self):
+        """Labels of the irreps present, in order (tuple of str)."""
+        return tuple(dict.fromkeys(s.irrep for s in self.sets))
+
+    def __str__(self):
+        lines = [f"symmetry-adapted basis of {self.space} in {self.group}"]
+        for s in self.sets:
+            lines.append(f"  {s.irrep} ({s.copy + 1}): " + ", ".join(sp.sstr(e) for e in s.readable))
+        return "\n".join(lines)
+
+    def latex(self):
+        """A LaTeX array: one row per partner set."""
+        rows = [f"{s.irrep_latex or s.irrep} & {s.latex()} \\\\" for s in self.sets]
+        return "\\begin{array}{ll}\n" + "\n".join(rows) + "\n\\end{array}"
+
+
+def symmetry_adapted(space, group, *, real=True):
+    """A symmetry-adapted orthonormal basis of a space: partner sets of every irrep.
+
+    Parameters
+    ----------
+    space : Space or object with ``as_space()``
+        Polynomials, harmonics, irrep products, tensor specs ...
+    group : PointGroup or str
+        A finite group.
+    real : bool, keyword-only
+        Use the real forms of complex pairs (default) or the complex members.
+
+    Returns
+    -------
+    SymmetryAdaptedBasis
+
+    Raises
+    ------
+    InvalidArgumentError
+        For a continuous group or a non-space argument.
+
+    Examples
+    --------
+    >>> from tensym.reps.spaces import polynomials
+    >>> b = symmetry_adapted(polynomials(1), "3m")
+    >>> [(s.irrep, s.readable) for s in b.sets]
+    [('A1', (z,)), ('E', (x, y))]
+    """
+    G = as_group_arg(group)
+    V = as_space_arg(space)
+    if getattr(G, "is_continuous", False):
+        raise InvalidArgumentError(
+            f"symmetry-adapted bases are built for finite groups; {G.names.hm} is continuous")
+    from tensym.reps.table import finite_table
+    from tensym.reps.reduction import multiplicities, space_characters
+    from tensym.reps.decompose import _group_label
+
+    t = finite_table(G)
+    mult = multiplicities(t, space_characters(V, t), real=real)
+    pool = t.real_irreps if real else t.irreps
+    Gram = to_dm(sp.Matrix(V.gram()))
+    n = G.order
+    sets = []
+    all_cols = []
+    for irr in pool:
+        m = mult.get(irr.label, 0)
+        if not m:
+            continue
+        sets_i, cols = _partners(V, G, t, irr, m, Gram)
+        sets += sets_i
+        all_cols += cols
+    matrix = sp.ImmutableMatrix(sp.Matrix.hstack(*all_cols)) if all_cols else sp.ImmutableMatrix(0, 0, [])
+    return SymmetryAdaptedBasis(_group_label(G), repr(V), tuple(sets), matrix)
+
+
+def _partners(V, G, t, irr, m, Gram):
+    d = irr.dim
+    n = G.order
+    ops = G.operations
+    gens, gmats_space, walk = generator_data(V, G)
+    irr_mats = t.matrices(irr.label)
+    gen_irr = [to_dm(sp.Matrix(irr_mats[i])) for i in gens]
+    all_m = unify(gmats_space + gen_irr + [Gram.convert_to(Gram.domain)]) if gens else [Gram]
+    k = len(gens)
+    gm_space, gm_irr, Gm = all_m[:k], all_m[k:2 * k], all_m[-1]
+    dom = Gm.domain
+    dim = V.dim
+    # D(g) and D_Gamma(g) for all g along the walk
+    Ds = [DomainMatrix.eye(dim, dom)] + [None] * (n - 1)
+    Dg = [DomainMatrix.eye(d, dom)] + [None] * (n - 1)
+    for p, kk, e in walk:
+        Ds[p] = gm_space[kk] * Ds[e]
+        Dg[p] = gm_irr[kk] * Dg[e]
+    conj = (lambda a: dom.from_sympy(sp.conjugate(dom.to_sympy(a)))) if not irr.is_real else (lambda a: a)
+
+    def P(i, j):
+        acc = DomainMatrix.zeros((dim, dim), dom)
+        for Dm, Gm_ in zip(Ds, Dg):
+            c = Gm_.to_list()[i][j]
+            if c != dom.zero:
+                acc = acc + Dm * conj(c)
+        return acc * dom.convert(sp.Rational(d, n))
+
+    P11 = P(0, 0)
+    _, piv = P11.rref()
+    if len(piv) != m:
+        raise ArithmeticError(f"P_11 of {irr.label} has rank {len(piv)}, expected the multiplicity {m}")
+    cols = [P11.extract(list(range(dim)), [j]) for j in piv]
+    # orthogonalise in the Gram inner product (real spaces; Hermitian for complex members)
+    basis, norms = [], []
+    for v in cols:
+        w = v
+        for b, nb in zip(basis, norms):
+            coef = _inner(b, Gm, w, dom, irr.is_real)
+            w = w - b * dom.quo(coef, nb)
+        basis.append(w)
+        norms.append(_inner(w, Gm, w, dom, irr.is_real))
+    Ps = [P11] + [P(i, 0) for i in range(1, d)]
+    out_sets = []
+    out_cols = []
+    for copy, (u, nu) in enumerate(zip(basis, norms)):
+        root = sp.sqrt(sp.radsimp(dom.to_sympy(nu)))
+        coords, elems, reads = [], [], []
+        for i in range(d):
+            f = Ps[i] * u
+            vec = sp.ImmutableMatrix([sp.radsimp(sp.expand(a / root)) for a in f.to_Matrix()])
+            coords.append(vec)
+            try:
+                el = V.element(list(vec))
+            except NotImplementedError:
+                el = vec
+            elems.append(el)
+            reads.append(readable(el) if isinstance(el, sp.Expr) else el)
+            out_cols.append(sp.Matrix(vec))
+        out_sets.append(PartnerSet(irr.label, copy, tuple(coords), tuple(elems), tuple(reads), irr.latex))
+    return out_sets, out_cols
+
+
+def _inner(a, G, b, dom, real):
+    if real:
+        return (a.transpose() * G * b).to_list()[0][0]
+    ah = a.to_Matrix().H
+    val = sp.expand((ah * G.to_Matrix() * b.to_Matrix())[0, 0])
+    return dom.from_sympy(val)
