@@ -84,26 +84,33 @@ def mq_matmul(a, b):
 
 
 _SQRT = {}
+_ENTRY = {}  # dict form (as a sorted tuple) -> sympy number; bounded by _ENTRY_LIMIT
+_ENTRY_LIMIT = 100000
+
+
+def _entry_sympy(e):
+    key = tuple(sorted((r, int(c.numerator), int(c.denominator)) for r, c in e.items()))
+    v = _ENTRY.get(key)
+    if v is None:
+        terms = []
+        for r, p, q in key:
+            c = sp.Rational(p, q)
+            if r == 1:
+                terms.append(c)
+            else:
+                root = _SQRT.get(r)
+                if root is None:
+                    root = _SQRT[r] = sp.sqrt(r)
+                terms.append(c * root)
+        v = sp.Add(*terms) if terms else sp.Integer(0)
+        if len(_ENTRY) < _ENTRY_LIMIT:
+            _ENTRY[key] = v
+    return v
 
 
 def mq_sympy(rows):
     """The sympy ImmutableMatrix of a 3x3 matrix in dict form (canonical entries)."""
-    vals = []
-    for row in rows:
-        for e in row:
-            terms = []
-            for r in sorted(e):
-                c = e[r]
-                q = sp.Rational(int(c.numerator), int(c.denominator))
-                if r == 1:
-                    terms.append(q)
-                else:
-                    root = _SQRT.get(r)
-                    if root is None:
-                        root = _SQRT[r] = sp.sqrt(r)
-                    terms.append(q * root)
-            vals.append(sp.Add(*terms) if terms else sp.Integer(0))
-    return sp.ImmutableMatrix(3, 3, vals)
+    return sp.ImmutableMatrix(3, 3, [_entry_sympy(e) for row in rows for e in row])
 
 
 def is_orthogonal_mq(m):
