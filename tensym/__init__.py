@@ -35,6 +35,29 @@ __all__ += ["ContinuousGroup", "GroupNames", "Operation", "PointGroup", "as_grou
             "point_group", "point_groups", "recognise", "reorient", "rotation_about", "rotation_from_axes",
             "settings_table"]
 # --- representations --------------------------------------------------------
+from tensym.reps import (
+    CharacterTable,
+    CorrelationTable,
+    Decomposition,
+    Irrep,
+    Space,
+    SymmetryAdaptedBasis,
+    antisymmetric_square,
+    character_table,
+    correlate,
+    decompose,
+    harmonics,
+    irrep_product,
+    irrep_space,
+    polynomials,
+    project,
+    symmetric_square,
+    symmetry_adapted,
+)
+
+__all__ += ["CharacterTable", "CorrelationTable", "Decomposition", "Irrep", "Space", "SymmetryAdaptedBasis",
+            "antisymmetric_square", "character_table", "correlate", "decompose", "harmonics", "irrep_product",
+            "irrep_space", "polynomials", "project", "symmetric_square", "symmetry_adapted"]
 # --- tensors ------------------------------------------------------------------
 from tensym.tensors import (
     Property,

@@ -22,8 +22,8 @@ Examples
 >>> from tensym.reps.table import finite_table
 >>> t = finite_table(point_group("m-3m"))
 >>> m = t.matrices("Eg")
->>> [sp.simplify(d.trace()) for d in m[:3]]
-[2, -1, -1]
+>>> [d.trace() for d in m] == [t.character("Eg", op) for op in t.group.operations]
+True
 """
 
 import sympy as sp

@@ -184,7 +184,7 @@ def readable(expr):
     Examples
     --------
     >>> readable(sp.sqrt(6)/6*X - sp.sqrt(6)/12*Y)
-    sqrt(6)*(2*x - y)/12
+    (sqrt(6)/12)*(2*x - y)
     """
     e = sp.expand(expr)
     if e == 0 or not e.free_symbols:
@@ -227,7 +227,7 @@ class PartnerSet:
         when the space builds elements, else the coordinates.
     readable : tuple
         The same written as scalar times a primitive integer polynomial where
-        possible, e.g. ``sqrt(6)*(2*x - y - z)/6``.
+        possible, e.g. ``(sqrt(6)/6)*(2*x - y - z)``.
     irrep_latex : str
         The irrep label in LaTeX.
     """
@@ -267,7 +267,7 @@ class SymmetryAdaptedBasis:
     >>> [s.irrep for s in b.sets]
     ['A1', 'A1', 'B1', 'B2', 'E']
     >>> b["B1"][0].readable
-    (sqrt(2)*(x**2 - y**2)/4,)
+    ((x**2 - y**2)/2,)
     """
 
     group: str

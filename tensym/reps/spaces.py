@@ -171,7 +171,7 @@ class PolynomialSpace(Space):
     >>> p = polynomials(1)
     >>> p.basis
     (x, y, z)
-    >>> p.coordinates(2*x - y)
+    >>> p.coordinates(2*X - Y)
     (2, -1, 0)
     """
 
