@@ -9,7 +9,18 @@ Examples
 from tensym.errors import InvalidArgumentError, InvalidGroupError, InvalidOptionError
 from tensym.reps.space import Space
 
-__all__ = ["as_group_arg", "as_space_arg", "check_option"]
+__all__ = ["as_group_arg", "as_space_arg", "check_option", "register_space_names"]
+
+# Resolvers of names (e.g. catalog property names) to spaces, registered by the
+# layers above (tensym.tensors registers the property catalog); reps itself
+# never imports them.
+_NAME_RESOLVERS = []
+
+
+def register_space_names(resolver):
+    """Register ``resolver(name) -> Space or None`` for string arguments of the space functions."""
+    if resolver not in _NAME_RESOLVERS:
+        _NAME_RESOLVERS.append(resolver)
 
 
 def as_group_arg(group, name="group"):
@@ -26,6 +37,11 @@ def as_space_arg(obj, name="space"):
     """A Space from a Space or an object with ``as_space()`` (TensorSpec, catalog property)."""
     if isinstance(obj, Space):
         return obj
+    if isinstance(obj, str):
+        for resolve in _NAME_RESOLVERS:
+            found = resolve(obj)
+            if found is not None:
+                return found
     conv = getattr(obj, "as_space", None)
     if callable(conv):
         sp_ = conv()

@@ -182,3 +182,13 @@ for _p in (
              "fourth-order elastic constants C_IJKL", "C_ijklmnpq = C_IJKL (no factors)"),
 ):
     register_property(_p)
+
+
+def _space_for_name(name):
+    """Resolver for the representation functions: a catalog name -> its tensor space."""
+    return get_property(name).spec.as_space()
+
+
+from tensym.reps.inputs import register_space_names  # noqa: E402  (reps is the layer below)
+
+register_space_names(_space_for_name)
