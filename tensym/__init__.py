@@ -73,6 +73,38 @@ from tensym.tensors import (
 __all__ += ["Property", "TensorForm", "TensorSpec", "from_voigt", "get_property", "property_names",
             "tensor_form", "to_voigt"]
 # --- data -----------------------------------------------------------------------
+from tensym.data import (
+    BatchCheck,
+    CheckReport,
+    Orientation,
+    SymmetryFinding,
+    TensorData,
+    axis_angle,
+    check_tensor,
+    check_tensors,
+    component_labels,
+    euler_angles,
+    find_symmetry,
+    invert_data,
+    invert_elastic,
+    misorientation,
+    orient,
+    random_rotations,
+    read_tensor,
+    rotate_values,
+    rotation_from_axis_angle,
+    rotation_from_euler,
+    symmetry_classes,
+    tensor_data,
+    write_tensor,
+)
+from tensym.tensors.rotate import rotate_tensor
+
+__all__ += ["BatchCheck", "CheckReport", "Orientation", "SymmetryFinding", "TensorData", "axis_angle",
+            "check_tensor", "check_tensors", "component_labels", "euler_angles", "find_symmetry", "invert_data",
+            "invert_elastic", "misorientation", "orient", "random_rotations", "read_tensor", "rotate_tensor",
+            "rotate_values", "rotation_from_axis_angle", "rotation_from_euler", "symmetry_classes",
+            "tensor_data", "write_tensor"]
 # --- output ---------------------------------------------------------------------
 from tensym.output import as_record, latex_document, render
 

@@ -1,0 +1,810 @@
+"""Checking numeric tensors against a point group: :func:`check_tensor` and :func:`check_tensors`.
+
+Method
+------
+Let x be the distinct components of the data (Voigt convention, the order of
+``tensym.component_labels``) and x = A a the symmetric form of the group with
+its independent constants a (``tensym.tensor_form``).  The constants are the
+weighted least-squares estimate
+
+    a = (A^T W A)^-1 A^T W x,   cov(a) = (A^T W A)^-1,
+
+in one of two stated norms:
+
+``'frobenius'`` (no uncertainties given)
+    W = diag(number of index tuples * Voigt factor^2): the full-tensor
+    Frobenius norm, so the symmetrized tensor A a is the orthogonal
+    projection of the data onto the invariant subspace (the group average of
+    the tensor).  No uncertainties are propagated.
+``'inverse covariance'`` (standard uncertainties or a covariance given)
+    W = C^-1: generalised least squares; cov(a) is the propagated
+    uncertainty, chi2 = (x - A a)^T W (x - A a) with n - k degrees of freedom
+    and its p-value P(chi2_{n-k} > chi2).
+
+Whatever the norm, ``residual_fraction`` is ||t - t_sym||_F / ||t||_F in the
+full-tensor Frobenius norm (every index tuple counted, not the Voigt matrix),
+0 for an all-zero tensor.
+
+Forbidden components are those the form sets to zero; broken relations are
+the other tied components, each compared with its relation evaluated on the
+*measured* values of the independent components (c66 against (c11 - c12)/2
+with the measured c11 and c12), with the propagated uncertainty of the
+difference.
+
+The residual is broken down by the irreps of the group: the Frobenius-
+orthogonal residual splits into isotypic components (``tensym.data.irreps``);
+each is reported as a fraction of ||t||_F, and the squares of the fractions add
+up to the square of the Frobenius residual fraction.  A small misorientation
+of a symmetric tensor only feeds the rotation-like irreps; the report also
+gives the first-order misorientation that best explains the residual.
+
+Examples
+--------
+>>> import numpy as np
+>>> import tensym
+>>> c = np.zeros((6, 6))
+>>> c[:3, :3] = 50.0; c[[0, 1, 2], [0, 1, 2]] = 160.0; c[[3, 4, 5], [3, 4, 5]] = 80.0
+>>> r = tensym.check_tensor(c, "elastic_stiffness", "m-3m", units="GPa")
+>>> r.passes, [(k.name, round(k.value, 6)) for k in r.constants]
+(True, [('c11', 160.0), ('c12', 50.0), ('c44', 80.0)])
+>>> c[0, 5] = c[5, 0] = 10.0
+>>> r = tensym.check_tensor(c, "elastic_stiffness", "m-3m", units="GPa")
+>>> r.verdict, [(f.label, f.value) for f in r.forbidden if f.value]
+('inconsistent', [('c16', 10.0)])
+"""
+
+from dataclasses import dataclass, field
+import math
+import numbers
+
+import numpy as np
+import sympy as sp
+
+from tensym.data.dataset import TensorData, _as_float_array, _check_finite, _to_components, tensor_data
+from tensym.data.irreps import isotypic_projectors
+from tensym.data.model import lie_derivative, layout as _layout, numeric_form
+from tensym.data.stats import chi2_sf
+from tensym.errors import DataError, InvalidOptionError
+from tensym.tensors.form import as_property
+
+__all__ = [
+    "FittedConstant",
+    "ForbiddenComponent",
+    "RelationCheck",
+    "IrrepResidual",
+    "CheckReport",
+    "BatchCheck",
+    "check_tensor",
+    "check_tensors",
+    "TOL_KINDS",
+]
+
+#: Accepted values of ``tol_kind``.
+TOL_KINDS = ("relative", "absolute")
+_LIE = np.array([[[0, 0, 0], [0, 0, -1], [0, 1, 0]], [[0, 0, 1], [0, 0, 0], [-1, 0, 0]],
+                 [[0, -1, 0], [1, 0, 0], [0, 0, 0]]], dtype=np.float64)
+
+
+def _ro(a):
+    if a is None:
+        return None
+    a = np.array(a, dtype=np.float64, copy=True)
+    a.setflags(write=False)
+    return a
+
+
+@dataclass(frozen=True)
+class FittedConstant:
+    """A fitted independent constant.
+
+    Attributes
+    ----------
+    name : str
+        As the symbolic form names it ('c11', 'd14').
+    symbol : sympy.Symbol
+        The form's symbol.
+    value : float
+        Best estimate (data units).
+    sigma : float or None
+        Propagated standard uncertainty (None without uncertainties).
+    """
+
+    name: str
+    symbol: sp.Symbol
+    value: float
+    sigma: float = None
+
+
+@dataclass(frozen=True)
+class ForbiddenComponent:
+    """A component the symmetry requires to vanish.
+
+    Attributes
+    ----------
+    label : str
+        Voigt label ('c14', 'd33').
+    value : float
+        Its value in the data.
+    sigma : float or None
+        Its standard uncertainty.
+    significance : float or None
+        |value| / sigma (its size in units of its uncertainty).
+    """
+
+    label: str
+    value: float
+    sigma: float = None
+    significance: float = None
+
+
+@dataclass(frozen=True)
+class RelationCheck:
+    """A component the symmetry ties to others, and how well the data keep the tie.
+
+    Attributes
+    ----------
+    label : str
+        Voigt label of the tied component ('c66').
+    relation : sympy.Eq
+        The relation of the form, e.g. ``Eq(c66, c11/2 - c12/2)``.
+    value : float
+        The tied component in the data.
+    expected : float
+        The right side evaluated with the measured independent components.
+    discrepancy : float
+        ``value - expected``.
+    sigma : float or None
+        Propagated standard uncertainty of the discrepancy.
+    significance : float or None
+        |discrepancy| / sigma.
+    """
+
+    label: str
+    relation: object
+    value: float
+    expected: float
+    discrepancy: float
+    sigma: float = None
+    significance: float = None
+
+
+@dataclass(frozen=True)
+class IrrepResidual:
+    """The part of the data in one non-trivial isotypic component.
+
+    Attributes
+    ----------
+    label : str
+        Mulliken label of the real irrep.
+    dim : int
+        Its dimension.
+    multiplicity : int
+        How often it occurs in the property's tensor space.
+    fraction : float
+        Frobenius norm of the component over the Frobenius norm of the tensor.
+    rotation_like : bool
+        The irrep occurs in the axial-vector representation, so a small
+        misorientation of a symmetric tensor shows up here.
+    """
+
+    label: str
+    dim: int
+    multiplicity: int
+    fraction: float
+    rotation_like: bool
+
+
+@dataclass(frozen=True, eq=False)
+class CheckReport:
+    """The result of :func:`check_tensor` (immutable; arrays are read-only).
+
+    Attributes
+    ----------
+    property : str
+        Property name.
+    group : str
+        Group symbol (setting symbol where the catalog has one).
+    setting : str
+        The group's setting in words.
+    units : str or None
+        The data's unit label (every value below except fractions is in it).
+    norm : str
+        'frobenius' or 'inverse covariance' (see the module notes).
+    constants : tuple of FittedConstant
+        Best estimates of the independent constants, in the form's order.
+    constants_covariance : numpy.ndarray or None
+        float64 (k, k) propagated covariance of the constants.
+    forbidden : tuple of FittedConstant
+        Every component the symmetry requires to vanish (ForbiddenComponent).
+    relations : tuple of RelationCheck
+        Every other tied component.
+    symmetrized : numpy.ndarray
+        float64 Voigt array of the fitted symmetric tensor.
+    symmetrized_sigma : numpy.ndarray or None
+        float64 Voigt array of its propagated standard uncertainties.
+    residual : numpy.ndarray
+        float64 Voigt array, data minus symmetrized.
+    residual_fraction : float
+        ||t - t_sym||_F / ||t||_F, full-tensor Frobenius norms.
+    max_deviation : float
+        Largest |data - symmetrized| over the distinct components (data units).
+    chi2, p_value : float or None
+        With uncertainties: chi-square of the fit and P(chi2_dof > chi2).
+    dof : int
+        n - k (distinct components minus constants).
+    irreps : tuple of IrrepResidual
+        Residual by non-trivial irrep (empty for continuous groups).
+    misorientation : float
+        First-order angle in degrees of the rotation that best explains the
+        residual: data ~ exp(w . L) applied to a symmetric tensor (active).
+    misorientation_axis : numpy.ndarray
+        float64 (3,) unit axis of that rotation (z when the angle is 0).
+    rotation_fraction : float
+        Frobenius norm of the residual part that rotation explains, over ||t||_F.
+    tol : float
+        Tolerance of the verdict.
+    tol_kind : str
+        'relative' (tol bounds residual_fraction, dimensionless) or 'absolute'
+        (tol bounds max_deviation, in the data's units).
+    alpha : float
+        Significance level of the chi-square test (used with uncertainties).
+    passes : bool
+        The verdict: within tolerance and (with uncertainties) p_value >= alpha.
+    verdict : str
+        'consistent' or 'inconsistent'.
+    reasons : tuple of str
+        The criteria and how each came out.
+    data : TensorData
+        The checked data.
+    form : TensorForm
+        The symbolic form used.
+    """
+
+    property: str
+    group: str
+    setting: str
+    units: str
+    norm: str
+    constants: tuple
+    constants_covariance: np.ndarray
+    forbidden: tuple
+    relations: tuple
+    symmetrized: np.ndarray
+    symmetrized_sigma: np.ndarray
+    residual: np.ndarray
+    residual_fraction: float
+    max_deviation: float
+    chi2: float
+    dof: int
+    p_value: float
+    irreps: tuple
+    misorientation: float
+    misorientation_axis: np.ndarray
+    rotation_fraction: float
+    tol: float
+    tol_kind: str
+    alpha: float
+    passes: bool
+    verdict: str
+    reasons: tuple
+    data: TensorData = field(repr=False)
+    form: object = field(repr=False)
+
+    def constant(self, name):
+        """The FittedConstant called ``name`` ('c11')."""
+        for c in self.constants:
+            if c.name == name:
+                return c
+        raise KeyError(f"{name!r} is not an independent constant here; constants: "
+                       f"{', '.join(c.name for c in self.constants)}")
+
+    def text(self):
+        """Plain-text report."""
+        from tensym.data.render import check_text
+
+        return check_text(self)
+
+    __str__ = text
+
+    def latex(self, *, standalone=False):
+        """LaTeX report (amsmath); a complete document with ``standalone=True``."""
+        from tensym.data.render import check_latex
+
+        return check_latex(self, standalone=standalone)
+
+    def markdown(self):
+        """Markdown report."""
+        from tensym.data.render import check_markdown
+
+        return check_markdown(self)
+
+    def record(self):
+        """JSON-ready dict (kind 'tensor_check')."""
+        from tensym.data.render import check_record
+
+        return check_record(self)
+
+    def to_json(self):
+        """The report as a JSON document (str)."""
+        import json
+
+        return json.dumps(self.record(), indent=2, ensure_ascii=False)
+
+    def __repr__(self):
+        return (f"<CheckReport {self.property} vs {self.group}: {self.verdict}, "
+                f"residual {self.residual_fraction:.3g}>")
+
+
+# --- shared validation ---------------------------------------------------------------
+def _group(group):
+    from tensym.groups import as_group
+
+    if group is None:
+        raise DataError("say which group to check against (group='6mm', 'C6v', a group object, ...)")
+    return as_group(group)
+
+
+def _options(tol, tol_kind, alpha):
+    if tol_kind not in TOL_KINDS:
+        raise InvalidOptionError(f"tol_kind={tol_kind!r} is not one of {', '.join(TOL_KINDS)}")
+    if isinstance(tol, bool) or not isinstance(tol, numbers.Real) or not math.isfinite(tol) or tol < 0:
+        raise DataError(f"tol must be a finite number >= 0, got {tol!r}")
+    if isinstance(alpha, bool) or not isinstance(alpha, numbers.Real) or not 0 < alpha < 1:
+        raise DataError(f"alpha must be a significance level in (0, 1), got {alpha!r}")
+    return float(tol), tol_kind, float(alpha)
+
+
+def _group_name(g):
+    return getattr(g, "setting_symbol", "") or getattr(g, "symbol", "") or "unnamed group"
+
+
+# --- kernels ---------------------------------------------------------------------------
+_LIE_CACHE = {}
+
+
+def _lie_matrices(lay):
+    """float64 (3, n, n): the infinitesimal rotations about x, y, z in y coordinates."""
+    key = lay.prop
+    if key not in _LIE_CACHE:
+        t = lay.x_to_full(np.diag(1.0 / lay.scale))  # unit y vectors as tensors
+        mats = []
+        for L in _LIE:
+            dt = lie_derivative(t, L, lay.rank)
+            mats.append((lay.scale[:, None] * lay.full_to_x(dt).T))
+        _LIE_CACHE[key] = np.array(mats)
+    return _LIE_CACHE[key]
+
+
+def _fit_single(nf, x, cov):
+    """Constants, their covariance, fitted x and chi2 for one tensor."""
+    lay = nf.layout
+    if cov is None:
+        a = nf.fit @ x
+        return a, None, nf.A @ a, None
+    w = np.linalg.inv(cov)
+    w = 0.5 * (w + w.T)
+    if nf.k:
+        gram = nf.A.T @ w @ nf.A
+        cov_a = np.linalg.inv(gram)
+        cov_a = 0.5 * (cov_a + cov_a.T)
+        a = cov_a @ (nf.A.T @ w @ x)
+    else:
+        cov_a, a = np.zeros((0, 0)), np.zeros(0)
+    xf = nf.A @ a
+    r = x - xf
+    chi2 = float(r @ w @ r)
+    del lay
+    return a, cov_a, xf, chi2
+
+
+def _constraint_matrix(nf, comps):
+    """Rows g with g . x = component - (its relation on the measured constants)."""
+    n = nf.layout.n
+    g = np.zeros((len(comps), n))
+    for r, c in enumerate(comps):
+        g[r, c] = 1.0
+        g[r, nf.free] -= nf.A[c]
+    return g
+
+
+def _misorientation(lay, nf, y, y_fit):
+    lie = _lie_matrices(lay)
+    j = np.einsum("aij,j->ia", lie, y_fit)
+    j = j - nf.Q @ (nf.Q.T @ j)
+    r = y - nf.Q @ (nf.Q.T @ y)
+    if not np.any(j):
+        return 0.0, np.array([0.0, 0.0, 1.0]), 0.0
+    w, *_ = np.linalg.lstsq(j, r, rcond=1e-10)
+    part = float(np.linalg.norm(j @ w))
+    ang = float(np.linalg.norm(w))
+    axis = w / ang if ang > 0 else np.array([0.0, 0.0, 1.0])
+    return math.degrees(ang), axis, part
+
+
+def check_tensor(values, what=None, group=None, *, sigma=None, covariance=None, units=None, tol=0.01,
+                 tol_kind="relative", alpha=0.05, layout="auto", symmetry_tol=1e-8):
+    """Check a numeric tensor against a point group: forbidden components, relations, fit, verdict.
+
+    Parameters
+    ----------
+    values : array_like or TensorData
+        Voigt array (with the property's factor convention), full Cartesian
+        array, or a TensorData (``tensym.tensor_data``, ``tensym.read_tensor``).
+    what : str, Property or TensorSpec
+        The property (not needed for a TensorData).
+    group : group object or str
+        The point group, in the setting the data are expressed in.
+    sigma, covariance, units, layout, symmetry_tol
+        As in :func:`tensym.tensor_data` (for array input).
+    tol : float
+        Tolerance of the verdict (see ``tol_kind``); default 0.01.
+    tol_kind : {'relative', 'absolute'}
+        'relative': ``residual_fraction <= tol`` (dimensionless, full-tensor
+        Frobenius norm); 'absolute': ``max_deviation <= tol`` in the data's units.
+    alpha : float
+        With uncertainties the verdict also needs ``p_value >= alpha`` (default 0.05).
+
+    Returns
+    -------
+    CheckReport
+
+    Raises
+    ------
+    DataError
+        For invalid data (see ``tensym.tensor_data``), a missing group or
+        property, or a tolerance/alpha out of range.
+    InvalidOptionError
+        For a ``tol_kind`` or ``layout`` outside its set.
+    UnknownGroupError, UnknownPropertyError
+        For unknown symbols or names.
+
+    Examples
+    --------
+    >>> import numpy as np
+    >>> import tensym
+    >>> d = np.zeros((3, 6)); d[2, 2] = 20.0; d[2, 0] = d[2, 1] = -8.0; d[0, 4] = d[1, 3] = 30.0
+    >>> rep = tensym.check_tensor(d, "piezoelectric_d", "6mm", sigma=np.full((3, 6), 0.5), units="pC/N")
+    >>> [(k.name, k.value, round(k.sigma, 4)) for k in rep.constants]
+    [('d15', 30.0, 0.3536), ('d31', -8.0, 0.3536), ('d33', 20.0, 0.5)]
+    >>> rep.chi2, rep.dof, rep.passes
+    (0.0, 15, True)
+    """
+    tol, tol_kind, alpha = _options(tol, tol_kind, alpha)
+    if isinstance(values, TensorData):
+        data = tensor_data(values, what, sigma=sigma, covariance=covariance, units=units)
+    else:
+        data = tensor_data(values, what, sigma=sigma, covariance=covariance, units=units, layout=layout,
+                           symmetry_tol=symmetry_tol)
+    g = _group(group)
+    prop = data.property
+    lay = _layout(prop)
+    nf = numeric_form(prop, g)
+    x = np.asarray(data.components)
+    cov = None if data.covariance is None else np.asarray(data.covariance)
+    a, cov_a, xf, chi2 = _fit_single(nf, x, cov)
+    norm = "frobenius" if cov is None else "inverse covariance"
+    sig_a = None if cov_a is None else np.sqrt(np.maximum(np.diag(cov_a), 0.0))
+    constants = tuple(FittedConstant(nm, sym, float(a[i]), None if sig_a is None else float(sig_a[i]))
+                      for i, (nm, sym) in enumerate(zip(nf.names, nf.form.symbols)))
+    sig_x = None if cov is None else np.sqrt(np.diag(cov))
+    forbidden = []
+    for c in nf.zero:
+        v = float(x[c])
+        s = None if sig_x is None else float(sig_x[c])
+        forbidden.append(ForbiddenComponent(lay.labels[c], v, s, None if s is None else abs(v) / s))
+    relations = []
+    gmat = _constraint_matrix(nf, nf.tied)
+    disc = gmat @ x
+    dvar = None if cov is None else np.einsum("ri,ij,rj->r", gmat, cov, gmat)
+    for r, c in enumerate(nf.tied):
+        lab = lay.labels[c]
+        d = float(disc[r])
+        s = None if dvar is None else float(math.sqrt(max(dvar[r], 0.0)))
+        relations.append(RelationCheck(lab, nf.relations.get(lab), float(x[c]), float(x[c]) - d, d, s,
+                                       None if not s else abs(d) / s))
+    y = lay.scale * x
+    ynorm = float(np.linalg.norm(y))
+    res = x - xf
+    frac = float(np.linalg.norm(lay.scale * res)) / ynorm if ynorm > 0 else 0.0
+    maxdev = float(np.max(np.abs(res))) if res.size else 0.0
+    dof = lay.n - nf.k
+    p = None
+    if chi2 is not None and dof > 0:
+        p = float(chi2_sf(chi2, dof))
+    irreps = ()
+    if not getattr(g, "is_continuous", False):
+        parts = []
+        for pr in isotypic_projectors(prop, g)[1:]:
+            f = float(np.linalg.norm(pr.basis.T @ y)) / ynorm if ynorm > 0 else 0.0
+            parts.append(IrrepResidual(pr.label, pr.dim, pr.multiplicity, f, pr.rotation_like))
+        irreps = tuple(parts)
+    y_fro = nf.Q @ (nf.Q.T @ y)
+    ang, axis, part = _misorientation(lay, nf, y, y_fro)
+    sym_sigma = None
+    if cov_a is not None:
+        cxf = nf.A @ cov_a @ nf.A.T
+        sym_sigma = np.abs(lay.x_to_voigt(np.sqrt(np.maximum(np.diag(cxf), 0.0))))
+    passes, reasons = _verdict(frac, maxdev, p, chi2, dof, tol, tol_kind, alpha, data.units)
+    return CheckReport(
+        property=prop.name,
+        group=_group_name(g),
+        setting=getattr(g, "setting", ""),
+        units=data.units,
+        norm=norm,
+        constants=constants,
+        constants_covariance=_ro(cov_a),
+        forbidden=tuple(forbidden),
+        relations=tuple(relations),
+        symmetrized=_ro(lay.x_to_voigt(xf)),
+        symmetrized_sigma=_ro(sym_sigma),
+        residual=_ro(lay.x_to_voigt(res)),
+        residual_fraction=frac,
+        max_deviation=maxdev,
+        chi2=chi2,
+        dof=dof,
+        p_value=p,
+        irreps=irreps,
+        misorientation=ang,
+        misorientation_axis=_ro(axis),
+        rotation_fraction=part / ynorm if ynorm > 0 else 0.0,
+        tol=tol,
+        tol_kind=tol_kind,
+        alpha=alpha,
+        passes=passes,
+        verdict="consistent" if passes else "inconsistent",
+        reasons=reasons,
+        data=data,
+        form=nf.form,
+    )
+
+
+def _verdict(frac, maxdev, p, chi2, dof, tol, tol_kind, alpha, units):
+    reasons = []
+    if tol_kind == "relative":
+        ok = frac <= tol
+        reasons.append(f"residual fraction {frac:.3g} {'<=' if ok else '>'} tol {tol:g} "
+                       "(relative, full-tensor Frobenius norm)")
+    else:
+        ok = maxdev <= tol
+        u = f" {units}" if units else ""
+        reasons.append(f"largest deviation {maxdev:.4g}{u} {'<=' if ok else '>'} tol {tol:g}{u} (absolute)")
+    if p is not None:
+        ok_p = p >= alpha
+        reasons.append(f"chi2 = {chi2:.4g} with {dof} dof, p = {p:.3g} {'>=' if ok_p else '<'} alpha {alpha:g}")
+        ok = ok and ok_p
+    elif chi2 is not None:
+        reasons.append("no degrees of freedom left for a chi-square test")
+    return bool(ok), tuple(reasons)
+
+
+# --- batch ---------------------------------------------------------------------------------
+@dataclass(frozen=True, eq=False)
+class BatchCheck:
+    """The result of :func:`check_tensors`: N tensors against one group (arrays read-only).
+
+    Attributes
+    ----------
+    property, group, units, norm : str
+        As in CheckReport (``norm`` 'frobenius' or 'inverse covariance').
+    names : tuple of str
+        Names of the constants (columns of ``constants``).
+    constants : numpy.ndarray
+        float64 (N, k) best estimates.
+    constants_sigma : numpy.ndarray or None
+        float64 (N, k) propagated standard uncertainties.
+    symmetrized : numpy.ndarray
+        float64 (N, *voigt_shape) fitted symmetric tensors.
+    residual_fraction : numpy.ndarray
+        float64 (N,), full-tensor Frobenius norms.
+    max_deviation : numpy.ndarray
+        float64 (N,) largest |data - symmetrized| per tensor (data units).
+    forbidden_labels : tuple of str
+    forbidden : numpy.ndarray
+        float64 (N, len(forbidden_labels)) values of the forbidden components.
+    relation_labels : tuple of str
+    discrepancies : numpy.ndarray
+        float64 (N, len(relation_labels)) tied component minus its relation on
+        the measured constants.
+    chi2, p_value : numpy.ndarray or None
+        float64 (N,) with uncertainties.
+    dof : int
+    irrep_labels : tuple of str
+    irrep_fractions : numpy.ndarray
+        float64 (N, len(irrep_labels)) residual fraction per non-trivial irrep.
+    passes : numpy.ndarray
+        bool (N,) verdicts.
+    tol, tol_kind, alpha
+        The verdict's criteria (as in CheckReport).
+    """
+
+    property: str
+    group: str
+    units: str
+    norm: str
+    names: tuple
+    constants: np.ndarray
+    constants_sigma: np.ndarray
+    symmetrized: np.ndarray
+    residual_fraction: np.ndarray
+    max_deviation: np.ndarray
+    forbidden_labels: tuple
+    forbidden: np.ndarray
+    relation_labels: tuple
+    discrepancies: np.ndarray
+    chi2: np.ndarray
+    dof: int
+    p_value: np.ndarray
+    irrep_labels: tuple
+    irrep_fractions: np.ndarray
+    passes: np.ndarray
+    tol: float
+    tol_kind: str
+    alpha: float
+    _inputs: tuple = field(repr=False)
+
+    def __len__(self):
+        return int(self.passes.shape[0])
+
+    def report(self, i):
+        """The full :class:`CheckReport` of tensor ``i`` (recomputed by :func:`check_tensor`)."""
+        values, sigma, what, group = self._inputs
+        n = len(self)
+        if isinstance(i, bool) or not isinstance(i, numbers.Integral) or not -n <= i < n:
+            raise IndexError(f"tensor index {i!r} is outside 0..{n - 1}")
+        return check_tensor(values[i], what, group, sigma=None if sigma is None else sigma[i], units=self.units,
+                            tol=self.tol, tol_kind=self.tol_kind, alpha=self.alpha, layout="components")
+
+    def __repr__(self):
+        return (f"<BatchCheck {self.property} vs {self.group}: {int(self.passes.sum())} of {len(self)} "
+                "consistent>")
+
+
+def check_tensors(values, what, group, *, sigma=None, units=None, tol=0.01, tol_kind="relative", alpha=0.05,
+                  layout="auto", symmetry_tol=1e-8):
+    """Check a stack of N tensors against one group in one vectorised pass.
+
+    Parameters
+    ----------
+    values : array_like
+        (N, *voigt_shape) Voigt arrays, (N, 3, ..., 3) full arrays, or (with
+        ``layout='components'``) (N, n) distinct components.
+    what : str, Property or TensorSpec
+        The property.
+    group : group object or str
+        The point group (setting of the data).
+    sigma : array_like, optional
+        Standard uncertainties, the shape of ``values``.
+    units, tol, tol_kind, alpha, layout, symmetry_tol
+        As in :func:`check_tensor`.
+
+    Returns
+    -------
+    BatchCheck
+
+    Raises
+    ------
+    DataError
+        For a wrong shape, non-finite values, contradicted index symmetry (the
+        message names the tensor of the stack), non-positive uncertainties,
+        unknown units, or a tolerance out of range.
+    InvalidOptionError
+        For a ``tol_kind`` or ``layout`` outside its set.
+
+    Examples
+    --------
+    >>> import numpy as np
+    >>> import tensym
+    >>> c = np.zeros((2, 6, 6)); c[:, :3, :3] = 1.0; c[:, [0, 1, 2], [0, 1, 2]] = 3.0
+    >>> c[:, [3, 4, 5], [3, 4, 5]] = 1.0; c[1, 0, 1] = c[1, 1, 0] = 1.5
+    >>> b = tensym.check_tensors(c, "elastic_stiffness", "m-3m")
+    >>> b.passes.tolist(), b.names
+    ([True, False], ('c11', 'c12', 'c44'))
+    """
+    from tensym.data.dataset import LAYOUTS
+    from tensym.data.units import check_units
+
+    tol, tol_kind, alpha = _options(tol, tol_kind, alpha)
+    prop = as_property(what)
+    g = _group(group)
+    lay = _layout(prop)
+    nf = numeric_form(prop, g)
+    u = check_units(units, prop)
+    arr = _as_float_array(values, "values")
+    if layout not in LAYOUTS:
+        raise InvalidOptionError(f"layout={layout!r} is not one of {', '.join(LAYOUTS)}")
+    shapes = {"voigt": lay.voigt_shape, "full": (3,) * lay.rank, "components": (lay.n,)}
+    kind = None
+    for k in (("voigt", "full") if layout == "auto" else (layout,)):
+        sh = shapes[k]
+        if arr.ndim == len(sh) + 1 and arr.shape[1:] == sh:
+            kind = k
+            break
+    if kind is None:
+        acc = " or ".join(f"(N, {', '.join(map(str, shapes[k]))})"
+                          for k in (("voigt", "full") if layout == "auto" else (layout,)))
+        raise DataError(f"values for {prop.name} must be a stack of shape {acc}, got {arr.shape}")
+    _check_finite(arr, "values", arr.shape)
+    x = _to_components(arr, lay, kind, "values", float(symmetry_tol))
+    nt = x.shape[0]
+    sx = None
+    if sigma is not None:
+        s = _as_float_array(sigma, "sigma")
+        if s.shape != arr.shape:
+            raise DataError(f"sigma must have the shape of values {arr.shape}, got {s.shape}")
+        _check_finite(s, "sigma", s.shape)
+        live = {"voigt": lay.voigt_comp, "full": lay.flat_comp, "components": np.zeros(lay.n)}[kind] >= 0
+        bad = (s.reshape(nt, -1) <= 0) & live
+        if bad.any():
+            pos = np.argwhere(bad)[0]
+            raise DataError(f"sigma must be strictly positive standard uncertainties; tensor {pos[0]} of the "
+                            f"stack has {s.reshape(nt, -1)[pos[0], pos[1]]:g}")
+        sx = _to_components(s, lay, kind, "sigma", float(symmetry_tol), positive=True)
+    # fit
+    if sx is None:
+        a = x @ nf.fit.T
+        sig_a = None
+        norm = "frobenius"
+    else:
+        w = 1.0 / sx**2
+        if nf.k:
+            gram = np.einsum("ik,ni,il->nkl", nf.A, w, nf.A)
+            rhs = np.einsum("ik,ni->nk", nf.A, w * x)
+            cov_a = np.linalg.inv(gram)
+            a = np.einsum("nkl,nl->nk", cov_a, rhs)
+            sig_a = np.sqrt(np.maximum(np.einsum("nkk->nk", cov_a), 0.0))
+        else:
+            a, sig_a = np.zeros((nt, 0)), np.zeros((nt, 0))
+        norm = "inverse covariance"
+    xf = a @ nf.A.T
+    res = x - xf
+    y = x * lay.scale
+    ynorm = np.linalg.norm(y, axis=1)
+    safe = np.where(ynorm > 0, ynorm, 1.0)
+    frac = np.where(ynorm > 0, np.linalg.norm(res * lay.scale, axis=1) / safe, 0.0)
+    maxdev = np.max(np.abs(res), axis=1) if lay.n else np.zeros(nt)
+    dof = lay.n - nf.k
+    chi2 = p = None
+    if sx is not None:
+        chi2 = np.sum(res**2 / sx**2, axis=1)
+        p = chi2_sf(chi2, dof) if dof > 0 else None
+    gmat = _constraint_matrix(nf, nf.tied)
+    disc = x @ gmat.T
+    labels_ir, fr_ir = (), np.zeros((nt, 0))
+    if not getattr(g, "is_continuous", False):
+        parts = isotypic_projectors(prop, g)[1:]
+        labels_ir = tuple(pr.label for pr in parts)
+        if parts:
+            big = np.concatenate([pr.basis for pr in parts], axis=1)
+            proj = y @ big
+            bounds = np.cumsum([0] + [pr.basis.shape[1] for pr in parts])
+            sq = np.add.reduceat(proj**2, bounds[:-1], axis=1)
+            fr_ir = np.sqrt(sq) / safe[:, None]
+    ok = frac <= tol if tol_kind == "relative" else maxdev <= tol
+    if p is not None:
+        ok = ok & (np.asarray(p) >= alpha)
+    return BatchCheck(
+        property=prop.name,
+        group=_group_name(g),
+        units=u,
+        norm=norm,
+        names=nf.names,
+        constants=_ro(a),
+        constants_sigma=_ro(sig_a),
+        symmetrized=_ro(lay.x_to_voigt(xf)),
+        residual_fraction=_ro(frac),
+        max_deviation=_ro(maxdev),
+        forbidden_labels=tuple(lay.labels[c] for c in nf.zero),
+        forbidden=_ro(x[:, nf.zero]),
+        relation_labels=tuple(lay.labels[c] for c in nf.tied),
+        discrepancies=_ro(disc),
+        chi2=_ro(chi2),
+        dof=dof,
+        p_value=_ro(p),
+        irrep_labels=labels_ir,
+        irrep_fractions=_ro(fr_ir),
+        passes=np.array(ok, dtype=bool, copy=True),
+        tol=tol,
+        tol_kind=tol_kind,
+        alpha=alpha,
+        _inputs=(_ro(x), _ro(None if sx is None else sx), prop, g),
+    )

@@ -1,0 +1,419 @@
+"""Measured or computed tensor data: validated values, uncertainties and units.
+
+:func:`tensor_data` reads a numeric tensor given as a Voigt array (with the
+property's factor convention, see ``tensym.tensors.catalog``), as a full
+Cartesian array, or as the list of its distinct components, together with
+optional standard uncertainties (same layout) or a covariance matrix, and
+returns an immutable :class:`TensorData`.
+
+Validation (each failure raises :class:`tensym.errors.DataError` naming the
+argument, what arrived and what is accepted):
+
+* the shape must be the Voigt shape, the full shape or (with
+  ``layout='components'``) the number of distinct components;
+* every value must be finite (NaN and inf are refused, with their positions);
+* entries that the property's own index symmetry makes equal (c_12 and c_21,
+  d_123 and d_132, ...) must agree within ``symmetry_tol`` (relative to the
+  largest entry); they are *not* averaged when they disagree: the error names
+  the disagreeing entries.  Components an antisymmetry forces to vanish must
+  vanish;
+* standard uncertainties must be finite and strictly positive, and follow the
+  same index symmetry;
+* a covariance must be (n, n) over the distinct components in the order of
+  :attr:`TensorData.labels`, symmetric and positive definite;
+* units must be a label accepted for the property (:mod:`tensym.data.units`).
+
+Examples
+--------
+>>> import numpy as np
+>>> from tensym.data.dataset import tensor_data
+>>> c = np.diag([10.0, 10.0, 10.0, 3.0, 3.0, 3.0]); c[0, 1] = c[1, 0] = 4.0
+>>> d = tensor_data(c, "elastic_stiffness", units="GPa")
+>>> d.labels[:3], float(d["c12"]), d.units
+(('c11', 'c12', 'c13'), 4.0, 'GPa')
+>>> c[1, 0] = 4.5
+>>> tensor_data(c, "elastic_stiffness")
+Traceback (most recent call last):
+...
+tensym.errors.DataError: values contradict the index symmetry of elastic_stiffness: c12 = 4 at Voigt entry (1, 2) but 4.5 at (2, 1); the entries are not averaged: correct them, or pass a larger symmetry_tol (now 1e-08, relative to the largest entry)
+"""
+
+from dataclasses import dataclass, field
+import numbers
+
+import numpy as np
+
+from tensym.data.model import layout as _layout
+from tensym.data.units import check_units
+from tensym.errors import DataError, InvalidOptionError
+from tensym.tensors.catalog import Property
+from tensym.tensors.form import as_property
+
+__all__ = ["TensorData", "tensor_data", "component_labels", "LAYOUTS"]
+
+#: Accepted values of the ``layout`` option.
+LAYOUTS = ("auto", "voigt", "full", "components")
+
+
+def component_labels(what):
+    """Labels of the distinct components of a property, in the order tensym uses.
+
+    The order is that of the Voigt labels (c11, c12, ..., c16, c22, ..., c66);
+    covariance matrices and ``layout='components'`` arrays follow it.
+
+    Examples
+    --------
+    >>> component_labels("piezoelectric_d")[:4]
+    ('d11', 'd12', 'd13', 'd14')
+    >>> len(component_labels("elastic_stiffness"))
+    21
+    """
+    return _layout(what).labels
+
+
+def _readonly(a):
+    a = np.array(a, dtype=np.float64, copy=True)
+    a.setflags(write=False)
+    return a
+
+
+@dataclass(frozen=True, eq=False)
+class TensorData:
+    """A numeric property tensor with optional uncertainties and a unit label.
+
+    Build one with :func:`tensor_data` or read one with ``tensym.read_tensor``.
+
+    Attributes
+    ----------
+    property : Property
+        The property the numbers belong to.
+    components : numpy.ndarray
+        float64 (n,), read-only: the value of each distinct component in the
+        Voigt convention of the property, in the order of :attr:`labels`.
+    covariance : numpy.ndarray or None
+        float64 (n, n), read-only: covariance of :attr:`components` (diagonal
+        when standard uncertainties were given), or None.
+    units : str or None
+        Unit label, echoed in reports (never converted).
+    source : str
+        Where the numbers came from ('array', a file name, 'rotated ...').
+    """
+
+    property: Property
+    components: np.ndarray
+    covariance: np.ndarray = None
+    units: str = None
+    source: str = "array"
+    _cache: dict = field(default_factory=dict, repr=False, compare=False)
+
+    # --- views -----------------------------------------------------------------
+    @property
+    def layout(self):
+        """The component layout (private kernel object)."""
+        return _layout(self.property)
+
+    @property
+    def labels(self):
+        """Labels of the distinct components ('c11', 'c12', ...), tuple of str."""
+        return self.layout.labels
+
+    @property
+    def n(self):
+        """Number of distinct components."""
+        return self.layout.n
+
+    @property
+    def voigt(self):
+        """Voigt array (float64, new array): 6x6 for c and s, 3x6 for d, 3x3 for epsilon, ..."""
+        return self.layout.x_to_voigt(self.components)
+
+    @property
+    def tensor(self):
+        """Full Cartesian tensor (float64, shape (3,)*rank, new array)."""
+        return self.layout.x_to_full(self.components)
+
+    @property
+    def sigma(self):
+        """Standard uncertainties of :attr:`components` (float64 (n,), new array) or None."""
+        if self.covariance is None:
+            return None
+        return np.sqrt(np.diag(self.covariance))
+
+    @property
+    def sigma_voigt(self):
+        """Standard uncertainties as a Voigt array (float64, new array) or None."""
+        s = self.sigma
+        return None if s is None else np.abs(self.layout.x_to_voigt(s))
+
+    @property
+    def has_uncertainties(self):
+        """True when a covariance (or standard uncertainties) was given."""
+        return self.covariance is not None
+
+    def __getitem__(self, label):
+        """The value of one component by label ('c44') or 1-based Voigt digits ('44')."""
+        lab = str(label)
+        labels = self.labels
+        if lab not in labels:
+            lab = self.property.symbol + lab
+        if lab not in labels:
+            raise KeyError(f"{label!r} is not a component of {self.property.name}; components: "
+                           f"{', '.join(labels[:8])}{', ...' if len(labels) > 8 else ''}")
+        return float(self.components[labels.index(lab)])
+
+    def rotated(self, rotation):
+        """The data in a rotated frame: t'_{ij..} = R_ia R_jb ... t_{ab..}, covariance propagated.
+
+        Parameters
+        ----------
+        rotation : array_like
+            Orthogonal 3x3 matrix (float).  Axial properties take the extra factor det(R).
+
+        Returns
+        -------
+        TensorData
+
+        Raises
+        ------
+        DataError
+            If ``rotation`` is not an orthogonal 3x3 matrix (to 1e-6).
+        """
+        from tensym.data.rotation import as_rotation
+        from tensym.data.model import rotation_action
+
+        r = as_rotation(rotation, proper=False)
+        m = rotation_action(self.layout, r)
+        if self.property.spec.axial and np.linalg.det(r) < 0:
+            m = -m
+        cov = None if self.covariance is None else m @ self.covariance @ m.T
+        return TensorData(self.property, _readonly(m @ self.components),
+                          None if cov is None else _readonly(0.5 * (cov + cov.T)), self.units,
+                          f"rotated {self.source}")
+
+    def record(self):
+        """A JSON-ready dict in the tensym data format (see ``tensym.data.io``)."""
+        from tensym.data.io import data_record
+
+        return data_record(self)
+
+    def to_json(self):
+        """The data as a JSON document in the tensym data format (str)."""
+        import json
+
+        return json.dumps(self.record(), indent=2)
+
+    def __repr__(self):
+        u = f" [{self.units}]" if self.units else ""
+        unc = ", with uncertainties" if self.covariance is not None else ""
+        return f"<TensorData {self.property.name}{u}: {self.n} components{unc}, from {self.source}>"
+
+
+def _as_float_array(values, name):
+    if isinstance(values, (str, bytes)):
+        raise DataError(f"{name} must be numbers (a numpy array or nested lists), got a string")
+    try:
+        arr = np.array(values, dtype=np.float64)
+    except (TypeError, ValueError) as exc:
+        raise DataError(f"{name} must be a rectangular array of numbers (numpy array or nested lists "
+                        f"of equal lengths): {exc}") from exc
+    return arr
+
+
+def _entry_text(pos):
+    return "(" + ", ".join(str(int(i) + 1) for i in pos) + ")"
+
+
+def _check_finite(arr, name, shape):
+    bad = ~np.isfinite(arr)
+    if bad.any():
+        where = [_entry_text(np.unravel_index(int(i), shape)) for i in np.flatnonzero(bad)[:4]]
+        kind = "NaN" if np.isnan(arr[bad]).any() else "inf"
+        raise DataError(f"{name} contains {kind} (not a finite number) at entr{'y' if len(where) == 1 else 'ies'} "
+                        f"{', '.join(where)}; every value must be finite")
+
+
+def _detect_layout(arr, lay, layout, name):
+    full = (3,) * lay.rank
+    if layout not in LAYOUTS:
+        raise InvalidOptionError(f"layout={layout!r} is not one of {', '.join(LAYOUTS)}")
+    shapes = {"voigt": lay.voigt_shape, "full": full, "components": (lay.n,)}
+    if layout == "auto":
+        if arr.shape == lay.voigt_shape:
+            return "voigt"
+        if arr.shape == full:
+            return "full"
+    elif arr.shape == shapes[layout]:
+        return layout
+    acc = f"Voigt {lay.voigt_shape} or full {full}" if layout == "auto" else f"{layout} {shapes[layout]}"
+    raise DataError(f"{name} for {lay.prop.name} must have shape {acc}, got {arr.shape}"
+                    + ("" if layout != "auto" else f" (or pass layout='components' for the {lay.n} "
+                       "distinct components in the order of tensym.component_labels)"))
+
+
+def _to_components(arr, lay, kind, name, tol, positive=False):
+    """Distinct components from arrays in the given layout, checking the index symmetry.
+
+    ``arr`` has the layout's shape, possibly after leading (stack) axes; the
+    tolerance is relative to the largest absolute entry of each array.
+    """
+    if kind == "components":
+        return arr.copy()
+    if kind == "voigt":
+        comp, sign, factor, rep = lay.voigt_comp, lay.voigt_sign, None, lay._voigt_rep
+        shape = lay.voigt_shape
+        where = "Voigt entry"
+    else:
+        comp, sign, factor, rep = lay.flat_comp, lay.flat_sign, lay.flat_factor, lay.rep_flat
+        shape = (3,) * lay.rank
+        where = "tensor index"
+    lead = arr.shape[: arr.ndim - len(shape)]
+    flat = arr.reshape(lead + (-1,))
+    live = comp >= 0
+    mult = np.where(live, np.where(sign == 0, 1, sign), 0.0)
+    if factor is not None:
+        mult = mult / np.where(factor == 0, 1.0, factor)
+    vals = flat * mult
+    if positive:
+        vals = np.abs(vals)
+    x = vals[..., rep]
+    scale = np.max(np.abs(flat), axis=-1, keepdims=True) if flat.shape[-1] else np.zeros(lead + (1,))
+    thr = tol * scale
+    if not positive and not live.all():
+        zero_bad = (~live) & (np.abs(flat) > thr)
+        if zero_bad.any():
+            pos = np.argwhere(zero_bad)[0]
+            i = int(pos[-1])
+            head = _stack_text(pos[:-1])
+            raise DataError(f"{name} of {lay.prop.name}{head}: {where} {_entry_text(np.unravel_index(i, shape))} "
+                            f"is {flat[tuple(pos)]:g} but the index symmetry of the property makes it vanish")
+    dev = np.abs(vals - x[..., np.maximum(comp, 0)])
+    bad = live & (dev > thr)
+    if bad.any():
+        pos = np.argwhere(bad)[0]
+        i, c = int(pos[-1]), int(comp[pos[-1]])
+        j = int(rep[c])
+        row = flat[tuple(pos[:-1])]
+        raise DataError(
+            f"{name} contradict the index symmetry of {lay.prop.name}{_stack_text(pos[:-1])}: {lay.labels[c]} = "
+            f"{row[j]:g} at {where} {_entry_text(np.unravel_index(j, shape))} but {row[i]:g} at "
+            f"{_entry_text(np.unravel_index(i, shape))}; the entries are not averaged: correct them, "
+            f"or pass a larger symmetry_tol (now {tol:g}, relative to the largest entry)")
+    # entries that agree within the tolerance: their mean, so that no entry is preferred
+    counts = np.bincount(comp[live], minlength=lay.n).astype(np.float64)
+    if np.all(counts == 1):
+        return x
+    summ = np.zeros((len(comp), lay.n))
+    summ[np.flatnonzero(live), comp[live]] = 1.0
+    return (vals @ summ) / counts
+
+
+def _stack_text(pos):
+    return "" if len(pos) == 0 else f" (tensor {', '.join(str(int(p)) for p in pos)} of the stack)"
+
+
+def tensor_data(values, what=None, *, sigma=None, covariance=None, units=None, layout="auto",
+                symmetry_tol=1e-8, source="array"):
+    """Validated numeric tensor data (see the module notes for every check).
+
+    Parameters
+    ----------
+    values : array_like or TensorData
+        Voigt array (6x6 stiffness, 3x6 d, ...), full Cartesian array
+        (3x3x3x3, ...) or, with ``layout='components'``, the distinct
+        components in the order of :func:`component_labels`.  A TensorData is
+        returned unchanged (after checking ``what``).
+    what : str, Property or TensorSpec
+        The property (catalog name such as 'elastic_stiffness').
+    sigma : array_like, optional
+        Standard uncertainties in the same layout and shape as ``values``.
+    covariance : array_like, optional
+        (n, n) covariance of the distinct components (order of :func:`component_labels`).
+    units : str, optional
+        Unit label, e.g. 'GPa' (see :func:`tensym.data.units.accepted_units`).
+    layout : {'auto', 'voigt', 'full', 'components'}
+        How to read ``values``; 'auto' tells Voigt and full arrays by shape.
+    symmetry_tol : float
+        Relative tolerance (fraction of the largest absolute entry) within which
+        entries that the index symmetry makes equal must agree.
+    source : str
+        A note on the origin, kept in reports.
+
+    Returns
+    -------
+    TensorData
+
+    Raises
+    ------
+    DataError
+        For wrong shapes, non-finite values, contradicted index symmetry,
+        non-positive uncertainties, a bad covariance, unknown units, or a
+        missing property.
+    InvalidOptionError
+        For a ``layout`` outside the accepted set.
+    UnknownPropertyError
+        For an unknown property name.
+
+    Examples
+    --------
+    >>> import numpy as np
+    >>> d = tensor_data(np.zeros((3, 6)), "piezoelectric_d", sigma=np.full((3, 6), 0.1), units="pC/N")
+    >>> d.sigma[:3]
+    array([0.1, 0.1, 0.1])
+    >>> tensor_data(np.zeros((3, 6)), "piezoelectric_d", sigma=np.zeros((3, 6)))
+    Traceback (most recent call last):
+    ...
+    tensym.errors.DataError: sigma must be strictly positive standard uncertainties; entry (1, 1) is 0
+    """
+    if isinstance(values, TensorData):
+        if what is not None and as_property(what) != values.property:
+            raise DataError(f"the data are {values.property.name}, not {as_property(what).name}")
+        if sigma is not None or covariance is not None or units is not None:
+            raise DataError("sigma, covariance and units come with the TensorData; pass a plain array to set them")
+        return values
+    if what is None:
+        raise DataError("say which property the numbers are (what='elastic_stiffness', 'piezoelectric_d', ...)")
+    prop = as_property(what)
+    lay = _layout(prop)
+    if isinstance(symmetry_tol, bool) or not isinstance(symmetry_tol, numbers.Real) or not (
+            0 <= symmetry_tol < 1):
+        raise DataError(f"symmetry_tol must be a number in [0, 1), got {symmetry_tol!r}")
+    arr = _as_float_array(values, "values")
+    kind = _detect_layout(arr, lay, layout, "values")
+    _check_finite(arr, "values", arr.shape)
+    x = _to_components(arr, lay, kind, "values", float(symmetry_tol))
+    cov = None
+    if sigma is not None and covariance is not None:
+        raise DataError("give either sigma (standard uncertainties) or covariance, not both")
+    if sigma is not None:
+        s = _as_float_array(sigma, "sigma")
+        if s.shape != arr.shape:
+            raise DataError(f"sigma must have the shape of values {arr.shape}, got {s.shape}")
+        _check_finite(s, "sigma", s.shape)
+        nonpos = s <= 0
+        if kind != "components":
+            comp = lay.voigt_comp if kind == "voigt" else lay.flat_comp
+            nonpos &= comp.reshape(s.shape) >= 0
+        if nonpos.any():
+            i = int(np.flatnonzero(nonpos)[0])
+            raise DataError(f"sigma must be strictly positive standard uncertainties; entry "
+                            f"{_entry_text(np.unravel_index(i, s.shape))} is {s.reshape(-1)[i]:g}")
+        sx = _to_components(s, lay, kind, "sigma", float(symmetry_tol), positive=True)
+        cov = np.diag(sx**2)
+    if covariance is not None:
+        c = _as_float_array(covariance, "covariance")
+        if c.shape != (lay.n, lay.n):
+            raise DataError(f"covariance must be ({lay.n}, {lay.n}) over the distinct components "
+                            f"{', '.join(lay.labels[:4])}, ... (tensym.component_labels), got {c.shape}")
+        _check_finite(c, "covariance", c.shape)
+        if not np.allclose(c, c.T, rtol=1e-10, atol=1e-14 * max(1.0, float(np.max(np.abs(c))))):
+            raise DataError("covariance must be symmetric")
+        try:
+            np.linalg.cholesky(c)
+        except np.linalg.LinAlgError as exc:
+            raise DataError("covariance must be positive definite (every variance > 0, no exact "
+                            "linear dependence)") from exc
+        cov = 0.5 * (c + c.T)
+    u = check_units(units, prop)
+    if not isinstance(source, str):
+        raise DataError(f"source must be a string, got {type(source).__name__}")
+    return TensorData(prop, _readonly(x), None if cov is None else _readonly(cov), u, source)

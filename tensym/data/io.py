@@ -1,0 +1,457 @@
+"""Tensor data files: :func:`read_tensor` and :func:`write_tensor` (CSV and JSON formats of tensym).
+
+CSV, matrix form
+----------------
+The Voigt array as rows of numbers (6 rows of 6 for a stiffness, 3 rows of 6
+for d, 3 rows of 3 for a rank-2 property), separated by commas, semicolons,
+tabs or spaces.  Lines starting with ``#`` are comments; ``# key: value``
+comments set metadata (keys ``property``, ``units``, ``source``).  A comment
+line ``# uncertainty`` starts a second block of the same shape with the
+standard uncertainties::
+
+    # property: elastic_stiffness
+    # units: GPa
+    166, 64, 64, 0, 0, 0
+    ...
+    # uncertainty
+    1, 1, 1, 1, 1, 1
+    ...
+
+CSV, long form
+--------------
+A header line ``component,value`` or ``component,value,uncertainty``, then one
+component per line.  A component is its Voigt label, with or without the
+property's letter (``c11``, ``11``, ``d31``, ``123`` for C_123), or its
+Cartesian indices, 1-based, one digit per index (``1111``, ``2323``,
+``311``); a Voigt label has one digit per Voigt group, Cartesian indices one
+per tensor index, so the two cannot be confused.  Entries that the index
+symmetry makes equal may be listed several times (``c12`` and ``c21``) and must
+agree.  Without an uncertainty column an unlisted component is zero; with
+one, every distinct component must be listed.
+
+JSON
+----
+One object (keys in any order)::
+
+    {"format": "tensym-data/1",
+     "property": "piezoelectric_d",
+     "units": "pC/N",
+     "layout": "voigt",                    # or "full" or "components" (optional: told by shape)
+     "values": [[...], [...], [...]],      # or {"d15": 68.0, "d22": 21.0, ...} for components
+     "uncertainty": [[...], ...],          # optional, same shape (or a dict of components)
+     "covariance": {"labels": ["d15", ...], "matrix": [[...]]},   # optional instead
+     "source": "..."}                       # optional
+
+``covariance`` lists the labels of its rows and columns, in any order; they
+must be every distinct component exactly once (see ``tensym.component_labels``).
+
+Examples
+--------
+>>> import os, tempfile
+>>> import numpy as np
+>>> from tensym.data.dataset import tensor_data
+>>> d = tensor_data(np.diag([2.0, 2.0, 3.0]), "dielectric_permittivity", units="1")
+>>> path = os.path.join(tempfile.mkdtemp(), "eps.csv")
+>>> write_tensor(d, path)
+>>> print(open(path).read().strip())
+# tensym data: dielectric_permittivity
+# property: dielectric_permittivity
+# units: 1
+2, 0, 0
+0, 2, 0
+0, 0, 3
+>>> read_tensor(path).voigt.tolist()
+[[2.0, 0.0, 0.0], [0.0, 2.0, 0.0], [0.0, 0.0, 3.0]]
+"""
+
+import json
+import os
+import re
+
+import numpy as np
+
+from tensym.data.dataset import LAYOUTS, TensorData, tensor_data
+from tensym.data.model import layout as _layout
+from tensym.errors import DataError, InvalidOptionError
+from tensym.tensors.form import as_property
+
+__all__ = ["read_tensor", "write_tensor", "data_record", "FORMAT_TAG", "FILE_FORMATS"]
+
+#: The value of the "format" key of tensym's JSON data files.
+FORMAT_TAG = "tensym-data/1"
+#: Accepted values of the ``format`` option.
+FILE_FORMATS = ("auto", "csv", "json")
+_SPLIT = re.compile(r"[,;\t ]+")
+_META_KEYS = ("property", "units", "source")
+_UNC_WORDS = ("uncertainty", "uncertainties", "sigma", "standard uncertainty", "standard uncertainties")
+
+
+def _fmt(v):
+    return repr(float(v)) if float(v) != int(v) or abs(v) >= 1e15 else str(int(v))
+
+
+def data_record(data):
+    """The JSON-ready dict of a TensorData in the tensym data format."""
+    lay = data.layout
+    rec = {"format": FORMAT_TAG, "property": data.property.name, "units": data.units, "layout": "voigt",
+           "values": data.voigt.tolist()}
+    if data.covariance is not None:
+        cov = np.asarray(data.covariance)
+        if np.count_nonzero(cov - np.diag(np.diag(cov))) == 0:
+            rec["uncertainty"] = data.sigma_voigt.tolist()
+        else:
+            rec["covariance"] = {"labels": list(lay.labels), "matrix": cov.tolist()}
+    rec["source"] = data.source
+    return rec
+
+
+def write_tensor(data, path, *, format="auto"):
+    """Write a TensorData to a CSV or JSON file in tensym's formats (see the module notes).
+
+    Parameters
+    ----------
+    data : TensorData
+    path : str or os.PathLike
+    format : {'auto', 'csv', 'json'}
+        'auto' follows the extension ('.json' is JSON, anything else CSV).
+
+    Raises
+    ------
+    DataError
+        If ``data`` is not a TensorData, or a full covariance is to go to CSV.
+    InvalidOptionError
+        For a format outside the set.
+    """
+    if not isinstance(data, TensorData):
+        raise DataError(f"write_tensor needs a TensorData (tensym.tensor_data), got {type(data).__name__}")
+    fmt = _format_of(path, format)
+    if fmt == "json":
+        text = json.dumps(data_record(data), indent=2) + "\n"
+    else:
+        text = _csv_text(data)
+    with open(path, "w", encoding="utf-8") as fh:
+        fh.write(text)
+
+
+def _csv_text(data):
+    lay = data.layout
+    head = [f"# tensym data: {data.property.name}", f"# property: {data.property.name}"]
+    if data.units:
+        head.append(f"# units: {data.units}")
+    cov = None if data.covariance is None else np.asarray(data.covariance)
+    if cov is not None and np.count_nonzero(cov - np.diag(np.diag(cov))):
+        raise DataError("a full covariance cannot be written to CSV; write JSON (format='json')")
+    v = data.voigt
+    if v.ndim <= 2:
+        mat = v.reshape(v.shape[0], -1) if v.ndim else v.reshape(1, 1)
+        rows = [", ".join(_fmt(a) for a in row) for row in mat]
+        if cov is not None:
+            s = data.sigma_voigt.reshape(mat.shape)
+            rows.append("# uncertainty")
+            rows += [", ".join(_fmt(a) for a in row) for row in s]
+    else:
+        rows = ["component,value" + (",uncertainty" if cov is not None else "")]
+        sig = data.sigma
+        for c, lab in enumerate(lay.labels):
+            rows.append(f"{lab},{_fmt(data.components[c])}" + (f",{_fmt(sig[c])}" if sig is not None else ""))
+    return "\n".join(head + rows) + "\n"
+
+
+def _format_of(path, format):
+    if format not in FILE_FORMATS:
+        raise InvalidOptionError(f"format={format!r} is not one of {', '.join(FILE_FORMATS)}")
+    if format != "auto":
+        return format
+    return "json" if str(os.fspath(path)).lower().endswith(".json") else "csv"
+
+
+def read_tensor(path, what=None, *, format="auto", units=None, symmetry_tol=1e-8):
+    """Read tensor data from a CSV or JSON file (formats in the module notes).
+
+    Parameters
+    ----------
+    path : str or os.PathLike
+    what : str, Property or TensorSpec, optional
+        The property; needed when the file does not name it, and must agree when it does.
+    format : {'auto', 'csv', 'json'}
+        'auto' follows the extension ('.json' is JSON, anything else CSV).
+    units : str, optional
+        Unit label; must agree with the file's when both are given.
+    symmetry_tol : float
+        As in :func:`tensym.tensor_data`.
+
+    Returns
+    -------
+    TensorData
+        With ``source`` set to the file name.
+
+    Raises
+    ------
+    DataError
+        For a missing or unreadable file, a malformed line (with its line
+        number), a property or units that disagree with the file, and every
+        check of :func:`tensym.tensor_data`.
+    InvalidOptionError
+        For a format outside the set.
+    """
+    fmt = _format_of(path, format)
+    try:
+        with open(path, encoding="utf-8") as fh:
+            text = fh.read()
+    except OSError as exc:
+        raise DataError(f"cannot read {os.fspath(path)!r}: {exc.strerror or exc}") from exc
+    name = os.path.basename(os.fspath(path))
+    if fmt == "json":
+        try:
+            obj = json.loads(text)
+        except json.JSONDecodeError as exc:
+            raise DataError(f"{name}: not valid JSON (line {exc.lineno}: {exc.msg})") from exc
+        return _from_json(obj, what, units, symmetry_tol, name)
+    return _from_csv(text, what, units, symmetry_tol, name)
+
+
+def _merge(meta_value, arg, key, name):
+    if arg is None:
+        return meta_value
+    if meta_value is None:
+        return arg
+    a = as_property(arg).name if key == "property" else arg
+    if str(meta_value).strip() != str(a).strip():
+        raise DataError(f"{name} gives {key} {meta_value!r} but {a!r} was asked for")
+    return arg
+
+
+def _numbers(line, lineno, name):
+    parts = [p for p in _SPLIT.split(line.strip()) if p]
+    try:
+        return [float(p) for p in parts]
+    except ValueError:
+        bad = next(p for p in parts if not _is_float(p))
+        raise DataError(f"{name}, line {lineno}: {bad!r} is not a number") from None
+
+
+def _is_float(p):
+    try:
+        float(p)
+        return True
+    except ValueError:
+        return False
+
+
+def _from_csv(text, what, units, tol, name):
+    meta = {}
+    blocks = [[]]
+    header = None
+    rows = []
+    for lineno, raw in enumerate(text.splitlines(), 1):
+        line = raw.strip()
+        if not line:
+            continue
+        if line.startswith("#"):
+            body = line.lstrip("#").strip()
+            if body.lower() in _UNC_WORDS:
+                blocks.append([])
+                continue
+            m = re.match(r"([A-Za-z_ ]+):\s*(.*)$", body)
+            if m and m.group(1).strip().lower() in _META_KEYS:
+                meta[m.group(1).strip().lower()] = m.group(2).strip()
+            continue
+        if header is None and not blocks[0] and _looks_like_header(line):
+            header = [h.strip().lower() for h in line.split(",")]
+            continue
+        if header is not None:
+            rows.append((lineno, line))
+        else:
+            blocks[-1].append((lineno, _numbers(line, lineno, name)))
+    prop_arg = _merge(meta.get("property"), what, "property", name)
+    if prop_arg is None:
+        raise DataError(f"{name} does not say which property it holds; pass what=... or add '# property: ...'")
+    prop = as_property(prop_arg)
+    u = _merge(meta.get("units"), units, "units", name)
+    source = meta.get("source", name)
+    if header is not None:
+        return _long_form(header, rows, prop, u, tol, name, source)
+    if len(blocks) > 2:
+        raise DataError(f"{name}: more than one '# uncertainty' block")
+    values = _matrix(blocks[0], name, "values")
+    sigma = _matrix(blocks[1], name, "uncertainties") if len(blocks) == 2 else None
+    lay = _layout(prop)
+    vs = lay.voigt_shape
+    if len(vs) > 2:
+        raise DataError(f"{name}: {prop.name} has Voigt shape {vs}; write it in long form "
+                        "(header 'component,value') or JSON")
+    if len(vs) < 2:  # a vector (one row or one column) or a scalar
+        values = values.reshape(vs) if values.size == int(np.prod(vs)) else values
+        if sigma is not None and sigma.size == int(np.prod(vs)):
+            sigma = sigma.reshape(vs)
+    return tensor_data(values, prop, sigma=sigma, units=u, layout="voigt", symmetry_tol=tol, source=source)
+
+
+def _looks_like_header(line):
+    first = line.split(",")[0].strip().lower()
+    return first in ("component", "label", "index", "indices")
+
+
+def _matrix(block, name, what):
+    if not block:
+        raise DataError(f"{name}: no {what} found")
+    widths = {len(r) for _, r in block}
+    if len(widths) != 1:
+        lineno = next(n for n, r in block if len(r) != len(block[0][1]))
+        raise DataError(f"{name}, line {lineno}: rows of the {what} have different lengths "
+                        f"({', '.join(str(w) for w in sorted(widths))} numbers)")
+    return np.array([r for _, r in block], dtype=np.float64)
+
+
+def _component_index(text, prop, lay):
+    """(component, factor) of a component label or Cartesian index string; None if invalid."""
+    t = text.strip()
+    if t.startswith(prop.symbol) and t[len(prop.symbol):].isdigit():
+        t = t[len(prop.symbol):]
+    if not t.isdigit():
+        return None
+    digits = [int(ch) for ch in t]
+    ngroups = len(prop.voigt_groups)
+    if len(digits) == ngroups:
+        dims = lay.voigt_shape
+        if any(not 1 <= d <= n for d, n in zip(digits, dims)):
+            return None
+        flat = int(np.ravel_multi_index(tuple(d - 1 for d in digits), dims))
+        c, s = int(lay.voigt_comp[flat]), int(lay.voigt_sign[flat])
+        return (c, s, 1.0) if c >= 0 else ("zero", 0, 1.0)
+    if len(digits) == lay.rank:
+        if any(not 1 <= d <= 3 for d in digits):
+            return None
+        flat = int(np.ravel_multi_index(tuple(d - 1 for d in digits), (3,) * lay.rank))
+        c, s = int(lay.flat_comp[flat]), int(lay.flat_sign[flat])
+        return (c, s, float(lay.flat_factor[flat])) if c >= 0 else ("zero", 0, 1.0)
+    return None
+
+
+def _long_form(header, rows, prop, units, tol, name, source):
+    lay = _layout(prop)
+    if header[:2] != ["component", "value"] or len(header) > 3 or (len(header) == 3 and header[2] not in (
+            "uncertainty", "sigma")):
+        raise DataError(f"{name}: the long-form header must be 'component,value' or "
+                        f"'component,value,uncertainty', got {','.join(header)!r}")
+    has_unc = len(header) == 3
+    vals = {}
+    uncs = {}
+    for lineno, line in rows:
+        parts = [p.strip() for p in line.split(",")]
+        if len(parts) != len(header):
+            raise DataError(f"{name}, line {lineno}: expected {len(header)} fields ({','.join(header)}), "
+                            f"got {len(parts)}")
+        where = _component_index(parts[0], prop, lay)
+        if where is None:
+            raise DataError(f"{name}, line {lineno}: {parts[0]!r} is not a component of {prop.name}: give a Voigt "
+                            f"label such as {lay.labels[0]!r} ({len(prop.voigt_groups)} digits) or "
+                            f"{lay.rank} Cartesian indices 1-3")
+        nums = _numbers(" ".join(parts[1:]), lineno, name)
+        c, sign, factor = where
+        if c == "zero":
+            if nums[0] != 0:
+                raise DataError(f"{name}, line {lineno}: {parts[0]} vanishes by the index symmetry of "
+                                f"{prop.name} but is given as {nums[0]:g}")
+            continue
+        vals.setdefault(c, []).append((nums[0] * sign / factor, lineno))
+        if has_unc:
+            if nums[1] <= 0:
+                raise DataError(f"{name}, line {lineno}: the uncertainty must be strictly positive, "
+                                f"got {nums[1]:g}")
+            uncs.setdefault(c, []).append((nums[1] / factor, lineno))
+    scale = max([abs(v) for lst in vals.values() for v, _ in lst] + [0.0])
+    x = np.zeros(lay.n)
+    for c, lst in vals.items():
+        v0, l0 = lst[0]
+        for v, ln in lst[1:]:
+            if abs(v - v0) > tol * scale:
+                raise DataError(f"{name}: {lay.labels[c]} is {v0:g} on line {l0} but {v:g} on line {ln}; "
+                                "entries the index symmetry makes equal must agree (they are not averaged)")
+        x[c] = np.mean([v for v, _ in lst])
+    sigma = None
+    if has_unc:
+        missing = [lay.labels[c] for c in range(lay.n) if c not in vals]
+        if missing:
+            raise DataError(f"{name}: with uncertainties every distinct component must be listed; missing: "
+                            f"{', '.join(missing[:10])}{', ...' if len(missing) > 10 else ''}")
+        sigma = np.zeros(lay.n)
+        for c, lst in uncs.items():
+            s0 = lst[0][0]
+            if any(abs(s - s0) > tol * max(abs(s0), 1e-300) for s, _ in lst[1:]):
+                raise DataError(f"{name}: the uncertainties given for {lay.labels[c]} disagree")
+            sigma[c] = s0
+    return tensor_data(x, prop, sigma=sigma, units=units, layout="components", source=source)
+
+
+def _from_json(obj, what, units, tol, name):
+    if not isinstance(obj, dict):
+        raise DataError(f"{name}: a tensym data file holds one JSON object, got {type(obj).__name__}")
+    known = {"format", "property", "units", "layout", "values", "uncertainty", "covariance", "source", "note"}
+    extra = sorted(set(obj) - known)
+    if extra:
+        raise DataError(f"{name}: unknown keys {', '.join(map(repr, extra))}; accepted: {', '.join(sorted(known))}")
+    tag = obj.get("format", FORMAT_TAG)
+    if tag != FORMAT_TAG:
+        raise DataError(f"{name}: format {tag!r} is not {FORMAT_TAG!r}")
+    prop_arg = _merge(obj.get("property"), what, "property", name)
+    if prop_arg is None:
+        raise DataError(f"{name} does not say which property it holds; pass what=... or add \"property\"")
+    prop = as_property(prop_arg)
+    lay = _layout(prop)
+    u = _merge(obj.get("units"), units, "units", name)
+    if "values" not in obj:
+        raise DataError(f"{name}: no \"values\"")
+    layout = obj.get("layout", "auto")
+    if layout not in LAYOUTS:
+        raise DataError(f"{name}: layout {layout!r} is not one of {', '.join(LAYOUTS)}")
+    values, unc = obj["values"], obj.get("uncertainty")
+    if isinstance(values, dict):
+        values = _dict_components(values, prop, lay, name, "values")
+        unc = None if unc is None else _dict_components(unc, prop, lay, name, "uncertainty", need_all=True)
+        layout = "components"
+    elif isinstance(unc, dict):
+        raise DataError(f"{name}: \"uncertainty\" must have the form of \"values\"")
+    cov = None
+    if "covariance" in obj:
+        if unc is not None:
+            raise DataError(f"{name}: give \"uncertainty\" or \"covariance\", not both")
+        cv = obj["covariance"]
+        if not isinstance(cv, dict) or set(cv) != {"labels", "matrix"}:
+            raise DataError(f"{name}: \"covariance\" must be {{\"labels\": [...], \"matrix\": [[...]]}}")
+        labels = [str(v) for v in cv["labels"]]
+        if sorted(labels) != sorted(lay.labels) or len(labels) != lay.n:
+            missing = sorted(set(lay.labels) - set(labels))
+            raise DataError(f"{name}: the covariance must cover every distinct component exactly once"
+                            + (f"; missing: {', '.join(missing[:8])}" if missing else ""))
+        m = np.array(cv["matrix"], dtype=np.float64)
+        if m.shape != (lay.n, lay.n):
+            raise DataError(f"{name}: covariance matrix must be {lay.n} x {lay.n}, got {m.shape}")
+        perm = [labels.index(lb) for lb in lay.labels]
+        cov = m[np.ix_(perm, perm)]
+    return tensor_data(values, prop, sigma=unc, covariance=cov, units=u, layout=layout, symmetry_tol=tol,
+                       source=obj.get("source", name))
+
+
+def _dict_components(d, prop, lay, name, what, need_all=False):
+    x = np.zeros(lay.n)
+    seen = set()
+    for key, val in d.items():
+        where = _component_index(str(key), prop, lay)
+        if where is None or where[0] == "zero":
+            raise DataError(f"{name}: {key!r} in {what} is not a component of {prop.name}")
+        c, sign, factor = where
+        try:
+            v = float(val)
+        except (TypeError, ValueError):
+            raise DataError(f"{name}: {what}[{key!r}] = {val!r} is not a number") from None
+        v = abs(v) / factor if what == "uncertainty" else v * sign / factor
+        if c in seen and not np.isclose(x[c], v, rtol=1e-12, atol=0):
+            raise DataError(f"{name}: {lay.labels[c]} is given twice in {what} with different values")
+        seen.add(c)
+        x[c] = v
+    if need_all and len(seen) != lay.n:
+        missing = [lay.labels[c] for c in range(lay.n) if c not in seen]
+        raise DataError(f"{name}: with uncertainties every distinct component must be listed; missing: "
+                        f"{', '.join(missing[:10])}{', ...' if len(missing) > 10 else ''}")
+    return x
