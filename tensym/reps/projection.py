@@ -116,7 +116,8 @@ def project(obj, group, irrep, *, axial=False):
         for m in c.indices:
             chars[m] = sp.conjugate(ch)
     ops = G.operations
-    scale = sp.Rational(irr.dim, G.order)
+    # a real form chi + conj(chi) projects with the members' dimension: P = P_chi + P_conj(chi)
+    scale = sp.Rational(irr.dim if irr.label in t.labels else irr.dim // 2, G.order)
     if is_array:
         arr = sp.Array(obj)
         total = None
@@ -357,6 +358,8 @@ def symmetry_adapted(space, group, *, real=True):
 
 
 def _partners(V, G, t, irr, m, Gram):
+    if irr.label not in t.labels:
+        return _real_pair_partners(V, G, t, irr, m, Gram)
     d = irr.dim
     n = G.order
     ops = G.operations
@@ -425,3 +428,32 @@ def _inner(a, G, b, dom, real):
     ah = a.to_Matrix().H
     val = sp.expand((ah * G.to_Matrix() * b.to_Matrix())[0, 0])
     return dom.from_sympy(val)
+
+
+def _real_pair_partners(V, G, t, irr, m, Gram):
+    """Partners of the real form of a complex pair: sqrt2 (Re u, Im u) for u in the image of P_1E.
+
+    With g u = chi(g) u, u = a + i b, the pair (a, b) transforms by the real-form
+    matrices [[Re chi, Im chi], [-Im chi, Re chi]]; u^T G u = 0 (u and conj(u)
+    lie in different isotypic components), so a and b are orthogonal with
+    equal norms |u|^2 / 2.
+    """
+    member = next(i for i in t.irreps if i.real_label == irr.label and i.label.startswith("1"))
+    sets, _cols = _partners(V, G, t, member, m, Gram)
+    out_sets, out_cols = [], []
+    r2 = sp.sqrt(2)
+    for s in sets:
+        (u,) = s.coordinates
+        parts = [sp.ImmutableMatrix([sp.radsimp(sp.expand(r2 * f(sp.expand_complex(v)))) for v in u])
+                 for f in (sp.re, sp.im)]
+        elems, reads = [], []
+        for vec in parts:
+            try:
+                el = V.element(list(vec))
+            except NotImplementedError:
+                el = vec
+            elems.append(el)
+            reads.append(readable(el) if isinstance(el, sp.Expr) else el)
+            out_cols.append(sp.Matrix(vec))
+        out_sets.append(PartnerSet(irr.label, s.copy, tuple(parts), tuple(elems), tuple(reads), irr.latex))
+    return out_sets, out_cols
