@@ -93,6 +93,21 @@ def _ro(a):
     return a
 
 
+def _own(a):
+    """Mark a freshly made array read-only without copying it."""
+    if a is None:
+        return None
+    a = np.asarray(a)
+    a.setflags(write=False)
+    return a
+
+
+def _ro_bool(a):
+    a = np.array(a, dtype=bool, copy=True)
+    a.setflags(write=False)
+    return a
+
+
 @dataclass(frozen=True)
 class FittedConstant:
     """A fitted independent constant.
@@ -592,8 +607,9 @@ class BatchCheck:
         float64 (N, k) best estimates.
     constants_sigma : numpy.ndarray or None
         float64 (N, k) propagated standard uncertainties.
-    symmetrized : numpy.ndarray
-        float64 (N, *voigt_shape) fitted symmetric tensors.
+    symmetrized_components : numpy.ndarray
+        float64 (N, n) fitted symmetric tensors as distinct components (the
+        order of ``tensym.component_labels``); :attr:`symmetrized` gives Voigt arrays.
     residual_fraction : numpy.ndarray
         float64 (N,), full-tensor Frobenius norms.
     max_deviation : numpy.ndarray
@@ -624,7 +640,7 @@ class BatchCheck:
     names: tuple
     constants: np.ndarray
     constants_sigma: np.ndarray
-    symmetrized: np.ndarray
+    symmetrized_components: np.ndarray
     residual_fraction: np.ndarray
     max_deviation: np.ndarray
     forbidden_labels: tuple
@@ -644,6 +660,11 @@ class BatchCheck:
 
     def __len__(self):
         return int(self.passes.shape[0])
+
+    @property
+    def symmetrized(self):
+        """float64 (N, *voigt_shape): the fitted symmetric tensors as Voigt arrays (a new array)."""
+        return _layout(self._inputs[2]).x_to_voigt(self.symmetrized_components)
 
     def report(self, i):
         """The full :class:`CheckReport` of tensor ``i`` (recomputed by :func:`check_tensor`)."""
@@ -723,62 +744,81 @@ def check_tensors(values, what, group, *, sigma=None, units=None, tol=0.01, tol_
         acc = " or ".join(f"(N, {', '.join(map(str, shapes[k]))})"
                           for k in (("voigt", "full") if layout == "auto" else (layout,)))
         raise DataError(f"values for {prop.name} must be a stack of shape {acc}, got {arr.shape}")
-    _check_finite(arr, "values", arr.shape)
-    x = _to_components(arr, lay, kind, "values", float(symmetry_tol))
-    nt = x.shape[0]
-    sx = None
+    s_arr = None
     if sigma is not None:
-        s = _as_float_array(sigma, "sigma")
-        if s.shape != arr.shape:
-            raise DataError(f"sigma must have the shape of values {arr.shape}, got {s.shape}")
-        _check_finite(s, "sigma", s.shape)
-        live = {"voigt": lay.voigt_comp, "full": lay.flat_comp, "components": np.zeros(lay.n)}[kind] >= 0
-        bad = (s.reshape(nt, -1) <= 0) & live
+        s_arr = _as_float_array(sigma, "sigma")
+        if s_arr.shape != arr.shape:
+            raise DataError(f"sigma must have the shape of values {arr.shape}, got {s_arr.shape}")
+    nt = arr.shape[0]
+    k, n = nf.k, lay.n
+    parts = () if getattr(g, "is_continuous", False) else isotypic_projectors(prop, g)[1:]
+    labels_ir = tuple(pr.label for pr in parts)
+    big = np.concatenate([pr.basis for pr in parts], axis=1) if parts else np.zeros((n, 0))
+    bounds = np.cumsum([0] + [pr.basis.shape[1] for pr in parts])[:-1]
+    gmat_t = _constraint_matrix(nf, nf.tied).T
+    dof = n - k
+    out_x = np.empty((nt, n))
+    out_a = np.empty((nt, k))
+    out_sa = None if s_arr is None else np.empty((nt, k))
+    out_xf = np.empty((nt, n))
+    out_frac = np.empty(nt)
+    out_dev = np.empty(nt)
+    out_chi = None if s_arr is None else np.empty(nt)
+    out_disc = np.empty((nt, len(nf.tied)))
+    out_ir = np.empty((nt, len(parts)))
+    live = {"voigt": lay.voigt_comp, "full": lay.flat_comp, "components": np.zeros(n)}[kind] >= 0
+    chunk = 1024  # small blocks: cache-resident, and below the size where BLAS starts threads
+    for lo in range(0, nt, chunk):
+        hi = min(nt, lo + chunk)
+        blk = arr[lo:hi]
+        bad = ~np.isfinite(blk)
         if bad.any():
-            pos = np.argwhere(bad)[0]
-            raise DataError(f"sigma must be strictly positive standard uncertainties; tensor {pos[0]} of the "
-                            f"stack has {s.reshape(nt, -1)[pos[0], pos[1]]:g}")
-        sx = _to_components(s, lay, kind, "sigma", float(symmetry_tol), positive=True)
-    # fit
-    if sx is None:
-        a = x @ nf.fit.T
-        sig_a = None
-        norm = "frobenius"
-    else:
-        w = 1.0 / sx**2
-        if nf.k:
-            gram = np.einsum("ik,ni,il->nkl", nf.A, w, nf.A)
-            rhs = np.einsum("ik,ni->nk", nf.A, w * x)
-            cov_a = np.linalg.inv(gram)
-            a = np.einsum("nkl,nl->nk", cov_a, rhs)
-            sig_a = np.sqrt(np.maximum(np.einsum("nkk->nk", cov_a), 0.0))
+            _check_finite(arr, "values", arr.shape)
+        x = _to_components(blk, lay, kind, "values", float(symmetry_tol))
+        out_x[lo:hi] = x
+        if s_arr is None:
+            a = x @ nf.fit.T
         else:
-            a, sig_a = np.zeros((nt, 0)), np.zeros((nt, 0))
-        norm = "inverse covariance"
-    xf = a @ nf.A.T
-    res = x - xf
-    y = x * lay.scale
-    ynorm = np.linalg.norm(y, axis=1)
-    safe = np.where(ynorm > 0, ynorm, 1.0)
-    frac = np.where(ynorm > 0, np.linalg.norm(res * lay.scale, axis=1) / safe, 0.0)
-    maxdev = np.max(np.abs(res), axis=1) if lay.n else np.zeros(nt)
-    dof = lay.n - nf.k
-    chi2 = p = None
-    if sx is not None:
-        chi2 = np.sum(res**2 / sx**2, axis=1)
-        p = chi2_sf(chi2, dof) if dof > 0 else None
-    gmat = _constraint_matrix(nf, nf.tied)
-    disc = x @ gmat.T
-    labels_ir, fr_ir = (), np.zeros((nt, 0))
-    if not getattr(g, "is_continuous", False):
-        parts = isotypic_projectors(prop, g)[1:]
-        labels_ir = tuple(pr.label for pr in parts)
+            sb = s_arr[lo:hi]
+            if not np.all(np.isfinite(sb)):
+                _check_finite(s_arr, "sigma", s_arr.shape)
+            nonpos = (sb.reshape(hi - lo, -1) <= 0) & live
+            if nonpos.any():
+                pos = np.argwhere(nonpos)[0]
+                raise DataError(f"sigma must be strictly positive standard uncertainties; tensor {lo + pos[0]} of "
+                                f"the stack has {sb.reshape(hi - lo, -1)[pos[0], pos[1]]:g}")
+            sx = _to_components(sb, lay, kind, "sigma", float(symmetry_tol), positive=True)
+            w = 1.0 / sx**2
+            if k:
+                gram = np.einsum("ik,ni,il->nkl", nf.A, w, nf.A)
+                cov_a = np.linalg.inv(gram)
+                a = np.einsum("nkl,nl->nk", cov_a, (w * x) @ nf.A)
+                out_sa[lo:hi] = np.sqrt(np.maximum(np.einsum("nkk->nk", cov_a), 0.0))
+            else:
+                a = np.zeros((hi - lo, 0))
+        out_a[lo:hi] = a
+        xf = a @ nf.A.T
+        out_xf[lo:hi] = xf
+        res = x - xf
+        y = x * lay.scale
+        ynorm = np.sqrt(np.einsum("ni,ni->n", y, y))
+        safe = np.where(ynorm > 0, ynorm, 1.0)
+        rs = res * lay.scale
+        out_frac[lo:hi] = np.where(ynorm > 0, np.sqrt(np.einsum("ni,ni->n", rs, rs)) / safe, 0.0)
+        out_dev[lo:hi] = np.max(np.abs(res), axis=1) if n else 0.0
+        if s_arr is not None:
+            out_chi[lo:hi] = np.einsum("ni,ni->n", res, res * w)
+        out_disc[lo:hi] = x @ gmat_t
         if parts:
-            big = np.concatenate([pr.basis for pr in parts], axis=1)
             proj = y @ big
-            bounds = np.cumsum([0] + [pr.basis.shape[1] for pr in parts])
-            sq = np.add.reduceat(proj**2, bounds[:-1], axis=1)
-            fr_ir = np.sqrt(sq) / safe[:, None]
+            out_ir[lo:hi] = np.sqrt(np.add.reduceat(proj * proj, bounds, axis=1)) / safe[:, None]
+    x, a, sig_a, xf, frac, maxdev, chi2, disc, fr_ir = (out_x, out_a, out_sa, out_xf, out_frac, out_dev, out_chi,
+                                                        out_disc, out_ir)
+    sx = None if s_arr is None else _to_components(s_arr, lay, kind, "sigma", float(symmetry_tol), positive=True)
+    norm = "frobenius" if s_arr is None else "inverse covariance"
+    p = None
+    if chi2 is not None and dof > 0:
+        p = chi2_sf(chi2, dof)
     ok = frac <= tol if tol_kind == "relative" else maxdev <= tol
     if p is not None:
         ok = ok & (np.asarray(p) >= alpha)
@@ -788,23 +828,23 @@ def check_tensors(values, what, group, *, sigma=None, units=None, tol=0.01, tol_
         units=u,
         norm=norm,
         names=nf.names,
-        constants=_ro(a),
-        constants_sigma=_ro(sig_a),
-        symmetrized=_ro(lay.x_to_voigt(xf)),
-        residual_fraction=_ro(frac),
-        max_deviation=_ro(maxdev),
+        constants=_own(a),
+        constants_sigma=_own(sig_a),
+        symmetrized_components=_own(xf),
+        residual_fraction=_own(frac),
+        max_deviation=_own(maxdev),
         forbidden_labels=tuple(lay.labels[c] for c in nf.zero),
-        forbidden=_ro(x[:, nf.zero]),
+        forbidden=_own(x[:, nf.zero]),
         relation_labels=tuple(lay.labels[c] for c in nf.tied),
-        discrepancies=_ro(disc),
-        chi2=_ro(chi2),
+        discrepancies=_own(disc),
+        chi2=_own(chi2),
         dof=dof,
-        p_value=_ro(p),
+        p_value=_own(p),
         irrep_labels=labels_ir,
-        irrep_fractions=_ro(fr_ir),
-        passes=np.array(ok, dtype=bool, copy=True),
+        irrep_fractions=_own(fr_ir),
+        passes=_ro_bool(ok),
         tol=tol,
         tol_kind=tol_kind,
         alpha=alpha,
-        _inputs=(_ro(x), _ro(None if sx is None else sx), prop, g),
+        _inputs=(_own(x), _own(sx), prop, g),
     )

@@ -250,61 +250,86 @@ def _detect_layout(arr, lay, layout, name):
                        "distinct components in the order of tensym.component_labels)"))
 
 
+_TABLES = {}
+
+
+def _tables(lay, kind):
+    """Index tables of a layout for reading components (cached per property and layout kind)."""
+    key = (lay.prop, kind)
+    hit = _TABLES.get(key)
+    if hit is not None:
+        return hit
+    if kind == "voigt":
+        comp, sign, factor, rep = lay.voigt_comp, lay.voigt_sign, None, lay._voigt_rep
+        shape, where = lay.voigt_shape, "Voigt entry"
+    else:
+        comp, sign, factor, rep = lay.flat_comp, lay.flat_sign, lay.flat_factor, lay.rep_flat
+        shape, where = (3,) * lay.rank, "tensor index"
+    live = comp >= 0
+    mult = np.where(live, np.where(sign == 0, 1, sign), 0.0).astype(np.float64)
+    if factor is not None:
+        mult = mult / np.where(factor == 0, 1.0, factor)
+    is_rep = np.zeros(len(comp), dtype=bool)
+    is_rep[rep] = True
+    others = np.flatnonzero(live & ~is_rep)
+    dead = np.flatnonzero(~live)
+    counts = np.bincount(comp[live], minlength=lay.n).astype(np.float64)
+    summ = np.zeros((len(others), lay.n))
+    summ[np.arange(len(others)), comp[others]] = 1.0
+    hit = dict(comp=comp, rep=rep, shape=shape, where=where, mult=mult, others=others, dead=dead,
+               counts=counts, summ=summ, rep_mult=mult[rep], other_mult=mult[others], other_comp=comp[others])
+    _TABLES[key] = hit
+    return hit
+
+
 def _to_components(arr, lay, kind, name, tol, positive=False):
     """Distinct components from arrays in the given layout, checking the index symmetry.
 
     ``arr`` has the layout's shape, possibly after leading (stack) axes; the
     tolerance is relative to the largest absolute entry of each array.
+    Entries that agree within it are averaged (so that no entry is preferred).
     """
     if kind == "components":
         return arr.copy()
-    if kind == "voigt":
-        comp, sign, factor, rep = lay.voigt_comp, lay.voigt_sign, None, lay._voigt_rep
-        shape = lay.voigt_shape
-        where = "Voigt entry"
-    else:
-        comp, sign, factor, rep = lay.flat_comp, lay.flat_sign, lay.flat_factor, lay.rep_flat
-        shape = (3,) * lay.rank
-        where = "tensor index"
+    tb = _tables(lay, kind)
+    shape, where = tb["shape"], tb["where"]
     lead = arr.shape[: arr.ndim - len(shape)]
     flat = arr.reshape(lead + (-1,))
-    live = comp >= 0
-    mult = np.where(live, np.where(sign == 0, 1, sign), 0.0)
-    if factor is not None:
-        mult = mult / np.where(factor == 0, 1.0, factor)
-    vals = flat * mult
+    x = flat[..., tb["rep"]] * tb["rep_mult"]
     if positive:
-        vals = np.abs(vals)
-    x = vals[..., rep]
-    scale = np.max(np.abs(flat), axis=-1, keepdims=True) if flat.shape[-1] else np.zeros(lead + (1,))
-    thr = tol * scale
-    if not positive and not live.all():
-        zero_bad = (~live) & (np.abs(flat) > thr)
+        x = np.abs(x)
+    if not (tb["others"].size or tb["dead"].size):
+        return x
+    thr = tol * np.max(np.abs(flat), axis=-1, keepdims=True)
+    if tb["dead"].size and not positive:
+        zero_bad = np.abs(flat[..., tb["dead"]]) > thr
         if zero_bad.any():
             pos = np.argwhere(zero_bad)[0]
-            i = int(pos[-1])
-            head = _stack_text(pos[:-1])
-            raise DataError(f"{name} of {lay.prop.name}{head}: {where} {_entry_text(np.unravel_index(i, shape))} "
-                            f"is {flat[tuple(pos)]:g} but the index symmetry of the property makes it vanish")
-    dev = np.abs(vals - x[..., np.maximum(comp, 0)])
-    bad = live & (dev > thr)
+            i = int(tb["dead"][pos[-1]])
+            row = flat[tuple(pos[:-1])]
+            raise DataError(f"{name} of {lay.prop.name}{_stack_text(pos[:-1])}: {where} "
+                            f"{_entry_text(np.unravel_index(i, shape))} is {row[i]:g} but the index symmetry "
+                            "of the property makes it vanish")
+    if not tb["others"].size:
+        return x
+    o = flat[..., tb["others"]] * tb["other_mult"]
+    if positive:
+        o = np.abs(o)
+    bad = np.abs(o - x[..., tb["other_comp"]]) > thr
     if bad.any():
         pos = np.argwhere(bad)[0]
-        i, c = int(pos[-1]), int(comp[pos[-1]])
-        j = int(rep[c])
+        i = int(tb["others"][pos[-1]])
+        c = int(tb["comp"][i])
+        j = int(tb["rep"][c])
         row = flat[tuple(pos[:-1])]
         raise DataError(
             f"{name} contradict the index symmetry of {lay.prop.name}{_stack_text(pos[:-1])}: {lay.labels[c]} = "
             f"{row[j]:g} at {where} {_entry_text(np.unravel_index(j, shape))} but {row[i]:g} at "
             f"{_entry_text(np.unravel_index(i, shape))}; the entries are not averaged: correct them, "
             f"or pass a larger symmetry_tol (now {tol:g}, relative to the largest entry)")
-    # entries that agree within the tolerance: their mean, so that no entry is preferred
-    counts = np.bincount(comp[live], minlength=lay.n).astype(np.float64)
-    if np.all(counts == 1):
+    if tol == 0:
         return x
-    summ = np.zeros((len(comp), lay.n))
-    summ[np.flatnonzero(live), comp[live]] = 1.0
-    return (vals @ summ) / counts
+    return (x + o @ tb["summ"]) / tb["counts"]
 
 
 def _stack_text(pos):
