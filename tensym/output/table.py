@@ -188,7 +188,10 @@ class Table:
         return latex_document([self])
 
     def _repr_latex_(self):
-        return "$$" + self.latex() + "$$"
+        # notebook renderers (MathJax, KaTeX) know only l, c, r columns in an array
+        plain = Table(title=self.title, columns=self.columns, rows=self.rows, latex_rows=self.latex_rows,
+                      latex_columns=self.latex_columns, notes=self.notes, rule_after=self.rule_after)
+        return "$$" + plain.latex() + "$$"
 
     def longtable(self):
         """Text-mode LaTeX: a ``longtable`` (breaks across pages), for documents.
