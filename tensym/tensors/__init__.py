@@ -8,6 +8,7 @@ Examples
 """
 
 from tensym.tensors.catalog import Property, get_property, property_names, register_property
+from tensym.tensors import magnetic_catalog  # noqa: F401  (registers the magnetic properties)
 from tensym.tensors.form import TensorForm, as_property, tensor_form
 from tensym.tensors.spec import MAX_RANK, TensorSpec
 from tensym.tensors.voigt import from_voigt, to_voigt, voigt_shape
