@@ -128,11 +128,54 @@ def project(obj, group, irrep, *, axial=False):
             total = term if total is None else total + term
         flat = [sp.expand(v * scale) for v in np.asarray(total).ravel()]
         return sp.ImmutableDenseNDimArray(flat, arr.shape)
+    if expr.is_polynomial(X, Y, Z):
+        return _project_polynomial(expr, G, irr, [chars[i] for i in range(len(ops))], scale)
     total = sp.Integer(0)
     for i, op in enumerate(ops):
         if chars[i] != 0:
             total += chars[i] * _transform_expr(expr, op)
     return sp.expand(scale * total)
+
+
+_PROJECTORS = {}
+
+
+def _project_polynomial(expr, G, irr, conj_chars, scale):
+    """Fast path: the projector as a cached exact matrix on each degree's monomials."""
+    from tensym.reps.linalg import group_actions
+    from tensym.reps.spaces import polynomials
+    from tensym.reps.table import group_key
+
+    poly = sp.Poly(sp.expand(expr), X, Y, Z)
+    parts = {}
+    for mono, c in poly.terms():
+        parts.setdefault(sum(mono), []).append((mono, c))
+    total = sp.Integer(0)
+    for n, terms in parts.items():
+        key = (group_key(G), irr.label, n)
+        P = _PROJECTORS.get(key)
+        if P is None:
+            space = polynomials(n)
+            D = group_actions(space, G)
+            row = unify([to_dm(sp.Matrix([conj_chars])), D[0]])
+            dom = row[0].domain
+            crow = row[0].to_list()[0]
+            acc = None
+            for c, m in zip(crow, D):
+                if c != dom.zero:
+                    term = m.convert_to(dom) * c
+                    acc = term if acc is None else acc + term
+            P = sp.ImmutableMatrix(acc.to_Matrix().applyfunc(sp.expand) * scale)
+            if len(_PROJECTORS) > 2048:
+                _PROJECTORS.clear()
+            _PROJECTORS[key] = P
+        idx = {m: i for i, m in enumerate(monomials(n))}
+        v = sp.zeros(len(idx), 1)
+        for mono, c in terms:
+            v[idx[mono]] = c
+        w = P * v
+        total += sum(sp.expand(w[i]) * X ** a * Y ** b * Z ** cc for i, (a, b, cc) in enumerate(monomials(n)))
+    return sp.expand(total)
 
 
 def _project_rotation_group(expr, G, irrep):
