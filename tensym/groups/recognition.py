@@ -29,6 +29,8 @@ True
 """
 
 
+import dataclasses
+
 import numpy as np
 import sympy as sp
 
@@ -49,6 +51,7 @@ __all__ = [
 ]
 
 _BASES = ("cartesian", "hexagonal")
+_SETTING_SYMBOLS = frozenset(s.symbol for s in SETTINGS)
 _TOL = 1e-9
 
 
@@ -455,12 +458,14 @@ def reorient(group, rotation):
     total = q if old.rotation is None else sp.ImmutableMatrix(matmul(q, old.rotation))
     if isinstance(g, ContinuousGroup):
         words = f"{old.setting}; re-oriented by Q = {_q_text(total)}"
-        names = GroupNames(old.hm, old.full_hm, old.schoenflies, words, old.crystal_system,
-                           old.laue_class, total, old.setting_symbol)
-        return g.conjugated(q, names=names)
+        return g.conjugated(q, names=dataclasses.replace(old, rotation=total, setting=words))
     turned = g.conjugated(q)
     if not old.setting_symbol:
         return PointGroup(turned.operations, turned.generators, recognise(turned))
+    if old.setting_symbol not in _SETTING_SYMBOLS:  # e.g. a magnetic group's own names
+        words = f"{old.setting}; re-oriented by Q = {_q_text(total)}"
+        return PointGroup(turned.operations, turned.generators,
+                          dataclasses.replace(old, rotation=total, setting=words))
     keys = turned.operation_keys()
     for row in SETTINGS:
         if row.hm == old.hm and catalog_group(row.symbol).operation_keys() == keys:
