@@ -169,3 +169,14 @@ def test_recognise_accepts_symbols_and_continuous_groups():
 def test_magnetic_groups_are_left_unnamed():
     g = group_from_generators(["-x,-y,z,-1"])
     assert g.symbol == "" and g.order == 2 and g.is_magnetic
+
+
+def test_reorient_keeps_names_outside_the_catalog():
+    from tensym.groups import GroupNames, PointGroup
+
+    base = point_group("mm2")
+    g = PointGroup(None, base.generators, GroupNames(hm="x", setting_symbol="own", setting="own words"))
+    q = rotation_about([0, 0, 1], sp.pi / 2)
+    r = reorient(g, q)
+    assert r.setting_symbol == "own" and r.rotation == q and r.setting.startswith("own words")
+    assert r.operation_keys() == base.operation_keys()  # a quarter turn maps mm2 onto itself
