@@ -37,9 +37,10 @@ def latex_document(results, *, title=None):
     Parameters
     ----------
     results : sequence
-        Results with a ``latex()`` method (tensor forms, tables, character
-        tables, decompositions, check reports) and plain strings, which become
-        paragraphs of text (LaTeX special characters escaped).
+        tensym results (tensor forms, tables, character tables, decompositions,
+        correlation tables, symmetry-adapted bases, check reports, batch
+        checks, orientations, symmetry findings) and plain strings, which
+        become paragraphs of text (LaTeX special characters escaped).
     title : str, optional
         A heading at the top (``\\section*``).
 
@@ -51,7 +52,7 @@ def latex_document(results, *, title=None):
     Raises
     ------
     InvalidOptionError
-        If ``results`` is empty or an item has no ``latex()`` method.
+        If ``results`` is empty or an item is not a result tensym renders.
 
     Examples
     --------
@@ -73,11 +74,6 @@ def latex_document(results, *, title=None):
     if title:
         body.append(f"\\section*{{{text_latex(title)}}}")
     for r in results:
-        if not isinstance(r, str) and not callable(getattr(r, "latex", None)):
-            raise InvalidOptionError(
-                f"cannot put a {type(r).__name__} in a LaTeX document: it has no latex() method; "
-                "accepted: tensym results and strings"
-            )
         if isinstance(r, str):
             body.append(text_latex(r))
         else:

@@ -12,7 +12,7 @@ import subprocess
 import pytest
 
 import tensym
-from tensym.output import latex_document
+from tensym.output import latex_document, render
 from tensym.output.listings import group_table, operations_table, property_table
 
 PDFLATEX = shutil.which("pdflatex")
@@ -43,14 +43,25 @@ def _results():
 
 
 def _layer_results():
-    """Results of the reps and data layers, for the ones this tree has."""
-    out = []
-    if hasattr(tensym, "character_table"):
-        out.append(tensym.character_table("4mm"))
-        out.append(tensym.character_table("-6m2"))
-    if hasattr(tensym, "decompose"):
-        out.append(tensym.decompose("elastic_stiffness", "m-3m"))
-    return out
+    """One result of every type of the reps and data layers."""
+    import numpy as np
+
+    c = np.zeros((6, 6))
+    c[:3, :3] = 50.0
+    c[[0, 1, 2], [0, 1, 2]] = 160.0
+    c[[3, 4, 5], [3, 4, 5]] = 80.0
+    c[0, 5] = c[5, 0] = 2.0
+    turned = tensym.rotate_values(c, tensym.rotation_from_axis_angle([1, 2, 3], 17.0), "elastic_stiffness")
+    return [
+        tensym.character_table("4mm"), tensym.character_table("3"), tensym.character_table("Dinfh"),
+        tensym.decompose("elastic_stiffness", "m-3m"), tensym.correlate("m-3m", "-3m"),
+        tensym.symmetry_adapted(tensym.harmonics(2), "-3m"),
+        tensym.check_tensor(c, "elastic_stiffness", "m-3m", units="GPa"),
+        tensym.check_tensors(np.stack([c, 1.01 * c]), "elastic_stiffness", "m-3m", units="GPa"),
+        tensym.orient(turned, "elastic_stiffness", "m-3m"),
+        tensym.find_symmetry(tensym.rotate_values(np.diag([1.0, 1.0, 2.0]), tensym.rotation_from_axis_angle(
+            [1, 0, 0], 30.0), "dielectric_permittivity"), "dielectric_permittivity"),
+    ]
 
 
 def _compile(tmp_path, name, source):
@@ -69,7 +80,7 @@ def _compile(tmp_path, name, source):
 
 
 def test_fragments_compile_with_amsmath_only(tmp_path):
-    body = "\n\n".join("\\[\n" + r.latex() + "\n\\]" for r in _results())
+    body = "\n\n".join("\\[\n" + render(r, format="latex") + "\n\\]" for r in _results())
     source = "\\documentclass{article}\n\\usepackage{amsmath}\n\\begin{document}\n" + body + "\n\\end{document}\n"
     _compile(tmp_path, "fragments", source)
 

@@ -195,7 +195,7 @@ def test_render_rejects_objects_it_does_not_know():
 def test_latex_document_errors():
     with pytest.raises(InvalidOptionError, match="at least one"):
         latex_document([])
-    with pytest.raises(InvalidOptionError, match="has no latex"):
+    with pytest.raises(InvalidOptionError, match="cannot render a object"):
         latex_document([object()])
 
 
