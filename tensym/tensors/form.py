@@ -18,7 +18,7 @@ import numpy as np
 import sympy as sp
 
 from tensym.errors import DataError, InvalidOptionError, InvalidSpecError
-from tensym.tensors.catalog import VOIGT_PAIRS, Property, get_property
+from tensym.tensors.catalog import VOIGT_PAIRS, Property, get_property, property_names
 from tensym.tensors.solver import solve_invariants
 from tensym.tensors.spec import TensorSpec
 
@@ -348,7 +348,17 @@ class TensorForm:
         return form_text(self)
 
     def __repr__(self):
-        gname = getattr(self.group, "symbol", "") or "group"
+        """Reads back as a ``tensor_form(...)`` call when the group is a named setting."""
+        names = getattr(self.group, "names", None)
+        setting = getattr(names, "setting_symbol", "") or getattr(self.group, "symbol", "")
+        what = repr(self.spec) if self.property.name == "tensor" else repr(self.property.name)
+        registered = self.property.name == "tensor" or self.property.name in property_names()
+        if registered and setting and getattr(names, "rotation", None) is None \
+                and not getattr(self.group, "is_magnetic", False):
+            extra = f", symbol={self.property.symbol!r}" if self.property.name != "tensor" and \
+                self.property.symbol != get_property(self.property.name).symbol else ""
+            return f"tensor_form({what}, {setting!r}{extra})"
+        gname = getattr(self.group, "symbol", "") or "unnamed group"
         return (f"<TensorForm {self.property.name} in {gname}: {self.n_independent} independent "
                 f"({', '.join(map(str, self.symbols))})>")
 

@@ -120,3 +120,12 @@ def test_bad_inputs():
         tensym.TensorSpec(11)
     with pytest.raises(tensym.errors.InvalidSpecError, match="bare string"):
         tensym.TensorSpec(2, "ji")
+
+
+def test_repr_reads_back():
+    from tensym import TensorSpec, tensor_form  # noqa: F401  (names used by eval)
+
+    for f in (tensym.tensor_form("elastic_stiffness", "3m"), tensym.tensor_form(tensym.TensorSpec(2, ["-ji"]), "D4h"),
+              tensym.tensor_form("piezoelectric_d", "6mm", symbol="D")):
+        g = eval(repr(f))
+        assert g.symbols == f.symbols and g.voigt == f.voigt
