@@ -39,8 +39,8 @@ TOUR_PROPERTIES = ("elastic_stiffness", "piezoelectric_d")
 _FORMATS = ("text", "latex", "markdown", "json")
 
 _MAIN_HELP = """\
-Exact symmetry algebra of crystal property tensors: reduced forms of property
-tensors in any point group, and the listings behind them.
+Exact symmetry algebra of crystal property tensors: reduced forms in any point
+group, character tables and decompositions, and checks of tensor data.
 Run 'tensym COMMAND --help' for the options and examples of a command.
 """
 
@@ -55,7 +55,23 @@ examples:
 
 
 class _Parser(argparse.ArgumentParser):
-    """An ArgumentParser whose errors are one line on stderr and exit status 2."""
+    """An ArgumentParser whose errors are one line on stderr and exit status 2.
+
+    Subcommand parsers read options and positionals in any order
+    (``tensym split 6mm --harmonic 2 elastic_stiffness``).
+    """
+
+    intermixed = True
+    _inside = False
+
+    def parse_known_args(self, args=None, namespace=None):
+        if self.intermixed and not self._inside:
+            self._inside = True
+            try:
+                return self.parse_known_intermixed_args(args, namespace)
+            finally:
+                self._inside = False
+        return super().parse_known_args(args, namespace)
 
     def error(self, message):
         self.exit(2, f"{self.prog}: {message} (see '{self.prog} --help')\n")
@@ -64,6 +80,7 @@ class _Parser(argparse.ArgumentParser):
 class _MainParser(_Parser):
     """The top parser: its help lists the commands in one column, then the examples."""
 
+    intermixed = False
     commands = ()
 
     def format_help(self):
@@ -99,8 +116,13 @@ def _emit(results, args, *, title=None):
                           indent=2, ensure_ascii=False)
     if fmt == "latex" and getattr(args, "standalone", False):
         return latex_document(results, title=title).rstrip("\n")
-    sep = "\n\n" if fmt != "text" else "\n\n\n"
-    return sep.join(render(r, format=fmt) for r in results)
+    texts = [render(r, format=fmt) for r in results]
+    if fmt != "text":
+        return "\n\n".join(texts)
+    out = texts[:1]
+    for prev, t in zip(texts, texts[1:]):  # one-line results stay together; blocks get blank lines
+        out.append(("\n" if "\n" not in prev and "\n" not in t else "\n\n\n") + t)
+    return "".join(out)
 
 
 class _UsageError(Exception):
@@ -146,11 +168,9 @@ def _cmd_form(args):
 
     group = point_group(args.group.strip())
     whats = list(args.properties)
-    spec_flags = args.sym or args.axial or args.time_odd or args.letter
-    if args.rank is None and spec_flags:
-        raise _UsageError("--sym, --axial, --time-odd and --letter describe a spec: give --rank too")
-    if args.rank is not None:
-        whats.append(TensorSpec(args.rank, _split_syms(args.sym), axial=args.axial, time_odd=args.time_odd))
+    spec = _spec_from(args)
+    if spec is not None:
+        whats.append(spec)
     if not whats:
         raise _UsageError("name at least one property ('tensym properties' lists them) or give --rank")
     forms = []
@@ -234,12 +254,7 @@ def build_parser():
                "note: write an antisymmetry as --sym=-ji (or --sym -ji; both are read).\n")
     p.add_argument("group", metavar="GROUP", help="point-group symbol (e.g. 6mm, C6v, -4m2, inf/mm, SO(3))")
     p.add_argument("properties", nargs="*", metavar="PROPERTY", help="catalog names ('tensym properties')")
-    p.add_argument("--rank", type=int, help="rank of a tensor given by its spec")
-    p.add_argument("--sym", action="append", metavar="PERM",
-                   help="an index order the tensor equals, e.g. ji or jikl; a leading '-' for antisymmetry; "
-                        "repeat or separate by commas")
-    p.add_argument("--axial", action="store_true", help="the spec is axial (transforms with det(R) R)")
-    p.add_argument("--time-odd", action="store_true", help="the spec changes sign under time reversal")
+    _add_spec_options(p)
     p.add_argument("--letter", help="letter of the spec's components (default T)")
     _add_format(p)
     p.set_defaults(handler=_cmd_form)
@@ -251,7 +266,215 @@ def build_parser():
 
 def _add_capability_commands(sub, raw):
     """Subcommands over the reps and data layers, added where those functions exist."""
-    return None
+    import tensym
+
+    if hasattr(tensym, "character_table"):
+        p = sub.add_parser(
+            "characters", help="character table of a group", formatter_class=raw,
+            description="The exact character table of a point group: classes as columns, irreps (Mulliken\n"
+                        "labels) as rows.  Continuous groups give their irreps up to a weight.",
+            epilog="examples:\n  tensym characters 4mm\n  tensym characters C3 --real\n"
+                   "  tensym characters Dinfh --up-to 2\n  tensym characters -43m --format latex\n")
+        p.add_argument("group", metavar="GROUP", help="point-group symbol")
+        p.add_argument("--real", action="store_true",
+                       help="combine complex-conjugate pairs into their real two-dimensional forms")
+        p.add_argument("--up-to", type=int, default=4, metavar="N",
+                       help="continuous groups: show irreps up to this weight (default 4)")
+        _add_format(p)
+        p.set_defaults(handler=_cmd_characters)
+    if hasattr(tensym, "decompose"):
+        p = sub.add_parser(
+            "split", help="decomposition of property tensors, harmonics or polynomials into irreps",
+            formatter_class=raw,
+            description="How a space splits into the irreps of a group: catalog properties, a tensor spec\n"
+                        "(--rank, --sym, --axial, --time-odd), the 2l+1 harmonics of angular momentum l\n"
+                        "(--harmonic), or the polynomials of a degree (--degree).  --basis adds the\n"
+                        "symmetry-adapted functions (harmonics and polynomials).",
+            epilog="examples:\n  tensym split m-3m elastic_stiffness piezoelectric_d\n"
+                   "  tensym split -3m --harmonic 2 --basis\n  tensym split O(3) --degree 3\n"
+                   "  tensym split 6mm --rank 2 --sym=-ji --axial --format json\n")
+        p.add_argument("group", metavar="GROUP", help="point-group symbol")
+        p.add_argument("properties", nargs="*", metavar="PROPERTY", help="catalog names ('tensym properties')")
+        p.add_argument("--harmonic", type=int, metavar="L", help="the real spherical harmonics of degree l")
+        p.add_argument("--parity", choices=("g", "u"),
+                       help="with --harmonic: parity under inversion (default (-1)^l, as for orbitals)")
+        p.add_argument("--degree", type=int, metavar="N", help="homogeneous polynomials in x, y, z of degree N")
+        _add_spec_options(p)
+        p.add_argument("--basis", action="store_true",
+                       help="also give the symmetry-adapted functions (with --harmonic or --degree)")
+        p.add_argument("--complex", action="store_true",
+                       help="keep complex-conjugate irrep pairs apart (default: their real forms)")
+        _add_format(p)
+        p.set_defaults(handler=_cmd_split)
+    if hasattr(tensym, "correlate"):
+        p = sub.add_parser(
+            "correlate", help="how the irreps of a group split in a subgroup", formatter_class=raw,
+            description="The correlation table from a group to a subgroup: each irrep of the group\n"
+                        "decomposed into irreps of the subgroup (in the subgroup's own setting).",
+            epilog="examples:\n  tensym correlate m-3m 4/mmm\n  tensym correlate O(3) -3m --up-to 3\n")
+        p.add_argument("group", metavar="GROUP", help="the group")
+        p.add_argument("subgroup", metavar="SUBGROUP", help="a subgroup (symbol)")
+        p.add_argument("--up-to", type=int, default=4, metavar="N",
+                       help="continuous groups: irreps up to this weight (default 4)")
+        _add_format(p)
+        p.set_defaults(handler=_cmd_correlate)
+    if hasattr(tensym, "check_tensor") and hasattr(tensym, "read_tensor"):
+        data_note = ("data files: CSV (the Voigt matrix, or 'component,value[,uncertainty]' lines; '# property:'\n"
+                     "and '# units:' comments) or JSON; see tensym.read_tensor.\n")
+        p = sub.add_parser(
+            "check", help="check a tensor data file against a group", formatter_class=raw,
+            description="Fit the symmetric form of a group to measured or computed tensor data: constants,\n"
+                        "forbidden components, broken relations, residual and a verdict.\n" + data_note,
+            epilog="examples:\n  tensym check stiffness.csv m-3m\n"
+                   "  tensym check d.json 6mm --tol 0.05 --format markdown\n"
+                   "  tensym check c.csv 6/mmm --property elastic_stiffness --units GPa\n")
+        p.add_argument("file", metavar="FILE", help="data file (.csv or .json)")
+        p.add_argument("group", metavar="GROUP", help="point-group symbol")
+        _add_data_options(p)
+        p.add_argument("--tol-kind", choices=("relative", "absolute"), default="relative",
+                       help="tol bounds the relative Frobenius residual (default) or the largest deviation "
+                            "in data units")
+        p.add_argument("--alpha", type=float, default=0.05,
+                       help="significance level of the chi-square test, with uncertainties (default 0.05)")
+        _add_format(p)
+        p.set_defaults(handler=_cmd_check)
+    if hasattr(tensym, "orient"):
+        p = sub.add_parser(
+            "frame", help="rotation that brings tensor data into a group's standard setting",
+            formatter_class=raw,
+            description="Search all rotations for the one that brings the data closest to the symmetric\n"
+                        "form of the group in its standard setting.\n",
+            epilog="examples:\n  tensym frame stiffness.csv m-3m\n  tensym frame c.json 6/mmm --format json\n")
+        p.add_argument("file", metavar="FILE", help="data file (.csv or .json)")
+        p.add_argument("group", metavar="GROUP", help="point-group symbol")
+        p.add_argument("--property", metavar="NAME", help="property of the data, if the file does not say")
+        p.add_argument("--units", metavar="UNITS", help="unit label of the data, if the file does not say")
+        _add_format(p)
+        p.set_defaults(handler=_cmd_frame)
+    if hasattr(tensym, "find_symmetry"):
+        p = sub.add_parser(
+            "identify", help="highest symmetry a tensor data file shows, in any frame", formatter_class=raw,
+            description="Try every symmetry class of the property, each in its best orientation, and list\n"
+                        "those within the tolerance, highest symmetry first.\n",
+            epilog="examples:\n  tensym identify stiffness.csv\n  tensym identify eps.csv --tol 0.002\n")
+        p.add_argument("file", metavar="FILE", help="data file (.csv or .json)")
+        p.add_argument("--property", metavar="NAME", help="property of the data, if the file does not say")
+        p.add_argument("--units", metavar="UNITS", help="unit label of the data, if the file does not say")
+        p.add_argument("--tol", type=float, default=0.01,
+                       help="relative tolerance on the Frobenius residual fraction (default 0.01)")
+        _add_format(p)
+        p.set_defaults(handler=_cmd_identify)
+
+
+def _add_spec_options(p):
+    p.add_argument("--rank", type=int, help="rank of a tensor given by its spec")
+    p.add_argument("--sym", action="append", metavar="PERM",
+                   help="an index order the tensor equals, e.g. ji or jikl; a leading '-' for antisymmetry; "
+                        "repeat or separate by commas")
+    p.add_argument("--axial", action="store_true", help="the spec is axial (transforms with det(R) R)")
+    p.add_argument("--time-odd", action="store_true", help="the spec changes sign under time reversal")
+
+
+def _add_data_options(p):
+    p.add_argument("--property", metavar="NAME", help="property of the data, if the file does not say")
+    p.add_argument("--units", metavar="UNITS", help="unit label of the data, if the file does not say")
+    p.add_argument("--tol", type=float, default=0.01,
+                   help="tolerance of the verdict (default 0.01, relative)")
+
+
+def _spec_from(args):
+    from tensym.tensors import TensorSpec
+
+    flags = args.sym or args.axial or args.time_odd or getattr(args, "letter", None)
+    if args.rank is None and flags:
+        raise _UsageError("--sym, --axial, --time-odd and --letter describe a spec: give --rank too")
+    if args.rank is None:
+        return None
+    return TensorSpec(args.rank, _split_syms(args.sym), axial=args.axial, time_odd=args.time_odd)
+
+
+def _cmd_characters(args):
+    import tensym
+
+    group = tensym.point_group(args.group.strip())
+    table = tensym.character_table(group, up_to=args.up_to) if group.is_continuous else tensym.character_table(group)
+    if args.real and not group.is_continuous:
+        from tensym.output.results import _RealView
+
+        return _emit([_RealView(table)], args)
+    return _emit([table], args)
+
+
+def _cmd_split(args):
+    import tensym
+    from tensym.output.forms import spec_words
+
+    group = tensym.point_group(args.group.strip())
+    spaces = []
+    for name in args.properties:
+        spaces.append((tensym.get_property(name).title, name))
+    spec = _spec_from(args)
+    if spec is not None:
+        spaces.append((spec_words(spec), spec.as_space()))
+    if args.parity and args.harmonic is None:
+        raise _UsageError("--parity goes with --harmonic")
+    functions = []
+    if args.harmonic is not None:
+        parity = args.parity
+        h = tensym.harmonics(args.harmonic, parity) if parity else tensym.harmonics(args.harmonic)
+        spaces.append((f"harmonics of degree l = {args.harmonic}" + (f" ({parity})" if parity else ""), h))
+        functions.append(h)
+    if args.degree is not None:
+        q = tensym.polynomials(args.degree)
+        spaces.append((f"polynomials of degree {args.degree}", q))
+        functions.append(q)
+    if not spaces:
+        raise _UsageError("name a property, or give --rank, --harmonic or --degree")
+    if args.basis and not functions:
+        raise _UsageError("--basis needs --harmonic or --degree")
+    real = not args.complex
+    from tensym.output import Captioned
+
+    results = [Captioned(label, tensym.decompose(space, group, real=real)) for label, space in spaces]
+    if args.basis:  # a basis names its space itself
+        results += [tensym.symmetry_adapted(f, group, real=real) for f in functions]
+    args._json_list = True
+    return _emit(results, args, title=f"Decompositions in {group.symbol or args.group}")
+
+
+def _cmd_correlate(args):
+    import tensym
+
+    return _emit([tensym.correlate(args.group.strip(), args.subgroup.strip(), up_to=args.up_to)], args)
+
+
+def _read(args):
+    import tensym
+
+    return tensym.read_tensor(args.file, args.property, units=args.units)
+
+
+def _cmd_check(args):
+    import tensym
+
+    data = _read(args)
+    report = tensym.check_tensor(data, group=tensym.point_group(args.group.strip()), tol=args.tol,
+                                 tol_kind=args.tol_kind, alpha=args.alpha)
+    return _emit([report], args)
+
+
+def _cmd_frame(args):
+    import tensym
+
+    data = _read(args)
+    return _emit([tensym.orient(data, group=tensym.point_group(args.group.strip()))], args)
+
+
+def _cmd_identify(args):
+    import tensym
+
+    data = _read(args)
+    return _emit([tensym.find_symmetry(data, tol=args.tol)], args)
 
 
 _DASH_DIGIT = re.compile(r"^-[0-9]")

@@ -18,8 +18,8 @@ Examples
 ('text', 'latex', 'markdown', 'json')
 """
 
-from tensym.output.dispatch import FORMATS, as_record, register_renderer, render
+from tensym.output.dispatch import FORMATS, Captioned, as_record, register_renderer, render
 from tensym.output.document import latex_document
 from tensym.output.table import Table
 
-__all__ = ["render", "latex_document", "as_record", "register_renderer", "FORMATS", "Table"]
+__all__ = ["render", "latex_document", "as_record", "register_renderer", "FORMATS", "Table", "Captioned"]

@@ -36,12 +36,13 @@ Examples
 }
 """
 
+from dataclasses import dataclass
 import json
 
 from tensym.errors import InvalidOptionError
 from tensym.output.symbols import text_latex
 
-__all__ = ["render", "as_record", "latex_block", "FORMATS", "register_renderer"]
+__all__ = ["render", "as_record", "latex_block", "FORMATS", "register_renderer", "Captioned"]
 
 #: The output formats accepted by :func:`render`.
 FORMATS = ("text", "latex", "markdown", "json")
@@ -100,6 +101,65 @@ def register_renderer(cls, *, text, latex, markdown, record, heading, after=None
     return cls
 
 
+@dataclass(frozen=True)
+class Captioned:
+    """A result with a caption naming what it describes (e.g. the space a decomposition splits).
+
+    Attributes
+    ----------
+    caption : str
+        Plain words, e.g. ``'elastic stiffness c_IJ'``.
+    result : object
+        Any result :func:`render` knows.
+
+    Examples
+    --------
+    >>> import tensym
+    >>> c = Captioned("d orbitals", tensym.decompose(tensym.harmonics(2), "m-3m"))
+    >>> render(c)
+    'd orbitals: Eg + T2g  (group m-3m, dimension 5)'
+    """
+
+    caption: str
+    result: object
+
+    def latex(self, *, standalone=False):
+        """Math-mode LaTeX of the captioned result (the caption goes in documents' headings)."""
+        return render(self, format="latex", standalone=standalone)
+
+    def _repr_latex_(self):
+        return "$$" + self.latex() + "$$"
+
+    def __str__(self):
+        return render(self)
+
+
+def _captioned_text(c):
+    text = _renderer(c.result).text(c.result)
+    return f"{c.caption}: {text}" if "\n" not in text else f"{c.caption}\n" + text
+
+
+def _captioned_latex(c, *, standalone=False):
+    if standalone:
+        from tensym.output.document import latex_document
+
+        return latex_document([c])
+    return _renderer(c.result).latex(c.result)
+
+
+def _captioned_markdown(c):
+    return f"*{c.caption}*\n\n" + _renderer(c.result).markdown(c.result)
+
+
+def _captioned_record(c):
+    return dict(_renderer(c.result).record(c.result), caption=c.caption)
+
+
+def _captioned_heading(c):
+    inner = _renderer(c.result).heading(c.result)
+    return text_latex(c.caption) + (": " + inner if inner else "")
+
+
 def _load_builtin():
     if _load_builtin.done:
         return
@@ -113,6 +173,9 @@ def _load_builtin():
     _REGISTRY.append((Table, _Renderer(
         Table.text, Table.latex, Table.markdown, Table.record,
         _table_title, _table_notes, _table_block)))
+    _REGISTRY.append((Captioned, _Renderer(_captioned_text, _captioned_latex, _captioned_markdown,
+                                           _captioned_record, _captioned_heading,
+                                           lambda c: _renderer(c.result).after(c.result))))
     from tensym.output import results  # renderers of the reps and data result types that exist
 
     results.register_all(register_renderer)
