@@ -30,12 +30,14 @@ def assert_one_line_error(code, out, err, *needles):
 def test_no_arguments_prints_the_overview(capsys):
     code, out, err = run(capsys)
     assert code == 0 and err == ""
-    for name in ("tour", "groups", "properties", "form"):
+    for name in ("tour", "groups", "properties", "form", "characters", "split", "correlate", "check", "frame",
+                 "identify"):
         assert f"\n  {name} " in out
     assert "examples:" in out
 
 
-@pytest.mark.parametrize("command", ["tour", "groups", "properties", "form"])
+@pytest.mark.parametrize("command", ["tour", "groups", "properties", "form", "characters", "split", "correlate",
+                                     "check", "frame", "identify"])
 def test_every_command_has_help_with_examples(capsys, command):
     code, out, _ = run(capsys, command, "--help")
     assert code == 0
@@ -209,3 +211,112 @@ def test_bad_spec_and_rank(capsys):
 
 def test_operations_of_a_continuous_group_are_refused(capsys):
     assert_one_line_error(*run(capsys, "groups", "SO(3)"), "continuous group")
+
+
+# --- representations ---------------------------------------------------------------------------------------
+def test_characters_of_c4v(capsys):
+    code, out, _ = run(capsys, "characters", "C4v", "--format", "json")
+    assert code == 0
+    rec = json.loads(out)
+    # Cotton 1990, Appendix (C4v): five classes, irreps A1 A2 B1 B2 E
+    assert [c["name"] for c in rec["classes"]][0] == "E" and len(rec["classes"]) == 5
+    assert [i["label"] for i in rec["irreps"]] == ["A1", "A2", "B1", "B2", "E"]
+
+
+def test_characters_real_forms_of_c3(capsys):
+    code, out, _ = run(capsys, "characters", "3", "--real")
+    assert code == 0
+    # Cotton 1990 (C3): the real form of the E pair has characters 2, -1, -1
+    row = [ln.split() for ln in out.splitlines() if ln.startswith("E ")][0]
+    assert row[1:] == ["2", "-1", "-1"]
+
+
+def test_characters_of_a_continuous_group(capsys):
+    code, out, _ = run(capsys, "characters", "Dinfh", "--up-to", "1")
+    assert code == 0 and "Πu" in out and "Δg" not in out
+
+
+def test_split_properties_and_d_orbitals(capsys):
+    code, out, _ = run(capsys, "split", "m-3m", "--harmonic", "2", "pyroelectric")
+    assert code == 0
+    lines = out.splitlines()
+    # Bethe 1929: l = 2 in Oh gives Eg + T2g; a polar vector in Oh is T1u (Cotton 1990)
+    assert "pyroelectric coefficients p_i: T1u  (group m-3m, dimension 3)" in lines
+    assert "harmonics of degree l = 2: Eg + T2g  (group m-3m, dimension 5)" in lines
+
+
+def test_split_basis_in_json(capsys):
+    code, out, _ = run(capsys, "split", "4mm", "--degree", "2", "--basis", "--format", "json")
+    assert code == 0
+    recs = json.loads(out)
+    assert [r["kind"] for r in recs] == ["decomposition", "symmetry_adapted_basis"]
+    # Cotton 1990 (C4v): quadratic functions x^2+y^2, z^2 (A1), x^2-y^2 (B1), xy (B2), (xz, yz) (E)
+    assert recs[0]["text"] == "2A1 + B1 + B2 + E"
+
+
+def test_split_spec_and_bad_combinations(capsys):
+    code, out, _ = run(capsys, "split", "6mm", "--rank", "2", "--sym=-ji", "--axial")
+    assert code == 0 and "rank-2 tensor, axial, T_ij = -T_ji:" in out
+    assert_one_line_error(*run(capsys, "split", "6mm"), "--harmonic")
+    assert_one_line_error(*run(capsys, "split", "6mm", "pyroelectric", "--basis"), "--basis needs")
+    assert_one_line_error(*run(capsys, "split", "6mm", "--parity", "g"), "--parity goes with --harmonic")
+
+
+def test_correlate(capsys):
+    code, out, _ = run(capsys, "correlate", "m-3m", "4/mmm")
+    assert code == 0
+    # Koster et al. 1963, compatibility Oh -> D4h: Eg -> A1g + B1g
+    assert any(ln.split()[:1] == ["Eg"] and ln.split()[1:] == ["A1g", "+", "B1g"] for ln in out.splitlines())
+
+
+# --- data files ---------------------------------------------------------------------------------------------
+def _cubic(tmp_path, *, turned):
+    import numpy as np
+
+    import tensym
+
+    c = np.zeros((6, 6))
+    c[:3, :3] = 60.0
+    c[[0, 1, 2], [0, 1, 2]] = 170.0
+    c[[3, 4, 5], [3, 4, 5]] = 75.0
+    if turned:
+        c = tensym.rotate_values(c, tensym.rotation_from_axis_angle([1, 2, 2], 25.0), "elastic_stiffness")
+    path = tmp_path / ("turned.csv" if turned else "cubic.json")
+    tensym.write_tensor(tensym.tensor_data(c, "elastic_stiffness", units="GPa"), str(path))
+    return str(path)
+
+
+def test_check_a_data_file(capsys, tmp_path):
+    code, out, _ = run(capsys, "check", _cubic(tmp_path, turned=False), "m-3m", "--format", "json")
+    assert code == 0
+    rec = json.loads(out)
+    assert rec["verdict"] == "consistent"
+    assert {c["name"]: c["value"] for c in rec["constants"]} == pytest.approx({"c11": 170.0, "c12": 60.0,
+                                                                              "c44": 75.0})
+
+
+def test_check_a_turned_tensor_fails_and_frame_finds_the_rotation(capsys, tmp_path):
+    path = _cubic(tmp_path, turned=True)
+    code, out, _ = run(capsys, "check", path, "m-3m")
+    assert code == 0 and out.splitlines()[0].endswith("inconsistent")
+    code, out, _ = run(capsys, "frame", path, "m-3m", "--format", "json")
+    assert code == 0
+    rec = json.loads(out)
+    assert rec["residual_fraction"] < 1e-8 and rec["angle_deg"] == pytest.approx(25.0, abs=1e-5)
+
+
+def test_identify_a_data_file(capsys, tmp_path):
+    code, out, _ = run(capsys, "identify", _cubic(tmp_path, turned=True), "--format", "json")
+    assert code == 0
+    # Forte & Vianello 1996: the cubic class is the highest one of a cubic stiffness (not isotropic)
+    assert json.loads(out)["best"] == "cubic"
+
+
+def test_data_file_errors(capsys, tmp_path):
+    assert_one_line_error(*run(capsys, "check", str(tmp_path / "missing.csv"), "m-3m"), "missing.csv")
+    bad = tmp_path / "bad.csv"
+    bad.write_text("# property: elastic_stiffness\n1, 2, x\n")
+    code, out, err = run(capsys, "check", str(bad), "m-3m")
+    assert code == 2 and len(err.strip().splitlines()) == 1 and "Traceback" not in err
+    path = _cubic(tmp_path, turned=False)
+    assert_one_line_error(*run(capsys, "check", path, "m-3m", "--property", "piezoelectric_d"), "piezoelectric_d")
