@@ -17,8 +17,8 @@ Method
    (:func:`tensym.data.rotation.rotation_grid`: Fibonacci-sphere directions
    times turns about z) with spacing ``resolution`` degrees, by default
    40 / rank clipped to [5, 15] (10 degrees for elasticity, 13.3 for
-   piezoelectricity; every rotation then lies within 0.85 x resolution of a grid
-   point).  f is a trigonometric polynomial of degree 2 rank in R, so its basins
+   piezoelectricity; every rotation then lies within about 1.05 x resolution
+   of a grid point).  f is a trigonometric polynomial of degree 2 rank in R, so its basins
    are wider than this spacing, and the grid puts a point inside the basin of
    the global minimum.
 2. The ``refine`` best grid points that are distinct modulo the group (more

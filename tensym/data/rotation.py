@@ -250,9 +250,9 @@ def rotation_grid(resolution):
     The grid is the product of ``ceil(4 pi / d^2)`` directions on a Fibonacci
     (golden-angle) sphere, d = resolution in radians, each reached from z by the
     shortest rotation, and ``ceil(360 / resolution)`` turns about z before it:
-    ``G = A(n) @ Rz(gamma)``.  Measured on random rotations, every rotation lies
-    within 0.85 x resolution of a grid point (25 degrees at 30, 8.3 at 10;
-    see the tests).
+    ``G = A(n) @ Rz(gamma)``.  Measured on 40 000 random rotations, every one
+    lies within 1.05 x resolution of a grid point (1.01 x at 10 degrees) and
+    99.9 % within 0.9 x (see the tests).
 
     Parameters
     ----------
