@@ -60,8 +60,9 @@ def project(obj, group, irrep, *, axial=False):
     obj : sympy expression in x, y, z, or sympy Array / Matrix (a Cartesian tensor)
         Other symbols are treated as constants.
     group : PointGroup, ContinuousGroup or str
-        Finite groups; and SO(3) / O(3) for polynomials (the D^l part of a
-        polynomial, by the harmonic decomposition f = sum r^(2k) h_(n-2k)).
+        Finite groups; for polynomials also the continuous groups: SO(3) / O(3)
+        (the D^l part, by the harmonic decomposition f = sum r^(2k) h_(n-2k))
+        and the axial groups (weights of the rotation about the axis).
     irrep : str
         An irrep label of the group: a real form (``'E'``) projects onto the sum
         of a complex pair, a member (``'1E'``) onto that member alone.
@@ -78,8 +79,8 @@ def project(obj, group, irrep, *, axial=False):
     UnknownIrrepError
         For a label the group does not have (the message lists the nearest).
     InvalidArgumentError
-        For an object that is neither an expression nor an array, or a
-        continuous group other than SO(3), O(3).
+        For an object that is neither an expression nor an array, or a tensor
+        with a continuous group.
 
     Examples
     --------
@@ -182,10 +183,9 @@ def _project_rotation_group(expr, G, irrep):
     from tensym.reps.continuous import _kind, _parse_label
 
     core, ext = _kind(G)
-    if core != "SO3":
-        raise InvalidArgumentError(
-            f"projection onto irreps of {G.names.hm} is not supported; use SO(3), O(3) or a finite subgroup")
     irr = _parse_label(G, irrep)
+    if core != "SO3":
+        return _project_axial(expr, G, irr, core, ext)
     l = irr.m
     poly = sp.Poly(sp.expand(expr), X, Y, Z)
     total = sp.Integer(0)
@@ -199,6 +199,55 @@ def _project_rotation_group(expr, G, irrep):
         if irr.parity and irr.parity != ("g" if n % 2 == 0 else "u"):
             continue  # polynomials of degree n have parity (-1)^n
         total += _harmonic_part(part, n, l)
+    return sp.expand(total)
+
+
+def _project_axial(expr, G, irr, core, ext):
+    """Projection onto an irrep of C∞, C∞h, C∞v, D∞, D∞h for polynomials.
+
+    With A the infinitesimal rotation about the axis on degree-n polynomials
+    (eigenvalues i m, |m| <= n), the weight-|m| part is the Lagrange projector
+    prod_{k != m} (A^2 + k^2) / (k^2 - m^2); the member with character
+    exp(+i m phi) is (1 - i A / m)/2 of it; Σ+ / Σ- take (1 +- D(s))/2 with s the
+    reflection sigma_v (C∞v, D∞h) or the 2-fold C2' (D∞); the parity of degree
+    n is (-1)^n.
+    """
+    from tensym.groups.operations import Operation
+    from tensym.reps.spaces import polynomials
+
+    poly = sp.Poly(sp.expand(expr), X, Y, Z)
+    parts = {}
+    for mono, c in poly.terms():
+        parts.setdefault(sum(mono), []).append((mono, c))
+    total = sp.Integer(0)
+    L = G.lie_generators[-1]
+    for n, terms in parts.items():
+        if irr.m > n:
+            continue
+        if irr.parity and irr.parity != ("g" if n % 2 == 0 else "u"):
+            continue
+        space = polynomials(n)
+        A = sp.Matrix(space.lie_action(L))
+        A2 = A * A
+        I = sp.eye(space.dim)
+        P = I
+        for k in range(0, n + 1):
+            if k != irr.m:
+                P = P * (A2 + k * k * I) / (k * k - irr.m * irr.m)
+        if irr.m == 0 and core == "Dinf":
+            ref = Operation.from_triplet("-x,y,z" if ext in ("i", "det") else "x,-y,-z")
+            if G.names.rotation is not None:
+                ref = ref.conjugated(G.names.rotation)
+            S = sp.Matrix(space.action(ref))
+            P = P * (I + irr.sign * S) / 2
+        elif not irr.is_real:
+            P = P * (I - sp.I * irr.sign * A / irr.m) / 2
+        idx = {m: i for i, m in enumerate(monomials(n))}
+        v = sp.zeros(len(idx), 1)
+        for mono, c in terms:
+            v[idx[mono]] = c
+        w = P * v
+        total += sum(sp.expand(w[i]) * X ** a * Y ** b * Z ** cc for i, (a, b, cc) in enumerate(monomials(n)))
     return sp.expand(total)
 
 

@@ -158,3 +158,16 @@ def test_projectors_idempotent_orthogonal_complete(symbol, cs):
             if a != b:
                 assert tensym.project(parts[a], symbol, b) == 0
     assert sp.expand(sum(parts.values()) - f) == 0
+
+
+def test_project_onto_axial_continuous_irreps():
+    # functions of linear molecules (common practice): x^2 + y^2 in Σg+, x^2 - y^2 in Δg, (xz, yz) in Πg,
+    # z in Σ+ of C∞v but Σ- of D∞ (the 2-fold along x reverses z)
+    assert tensym.project(x**2, "Dinfh", "Σg+") == sp.expand((x**2 + y**2) / 2)
+    assert tensym.project(x**2, "Dinfh", "Δg") == sp.expand((x**2 - y**2) / 2)
+    assert tensym.project(x * z, "Dinfh", "Πg") == x * z
+    assert tensym.project(z, "Cinfv", "Σ+") == z and tensym.project(z, "Dinf", "Σ-") == z
+    assert tensym.project(x * y * z, "Cinfv", "Δ") == x * y * z
+    # the member 1Π (character exp(+i phi)) matches 1E of the finite subgroups 4 and 6
+    assert tensym.project(x, "Cinf", "1Π") == tensym.project(x, "4", "1E") == tensym.project(x, "6", "1E1")
+    assert tensym.project(x, "Cinf", "1Π") == sp.expand((x - sp.I * y) / 2)
