@@ -96,7 +96,7 @@ def test_inversion_of_data_propagates_uncertainty():
     spread = comps.std(axis=0, ddof=1)
     assert np.allclose(spread, s.sigma, rtol=4 / np.sqrt(2 * (n - 1)) + 0.02)
     back = tensym.invert_data(s)
-    assert np.allclose(back.components, x) and back.units == "GPa"
+    assert np.allclose(back.components, d.components) and back.units == "GPa"
 
 
 def test_inversion_refusals():
