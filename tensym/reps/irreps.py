@@ -99,7 +99,9 @@ def build_matrices(table, irr):
     dim = space.dim
     # projections P e_j = sum_g conj(chi(g)) D(g) e_j, for j until d independent ones
     cols = []
-    for j in range(dim):
+    # try basis harmonics in reading order: for l = 1 that is x, y, z (the basis stores z, x, y)
+    order = [1, 2, 0] if getattr(space, "l", None) == 1 else list(range(dim))
+    for j in order:
         e = DomainMatrix([[dom.one if i == j else dom.zero] for i in range(dim)], (dim, 1), dom)
         orb = orbit(e, gmats, walk, n)
         v = orb[0] * crow[0]
