@@ -760,6 +760,7 @@ def check_tensors(values, what, group, *, sigma=None, units=None, tol=0.01, tol_
     out_x = np.empty((nt, n))
     out_a = np.empty((nt, k))
     out_sa = None if s_arr is None else np.empty((nt, k))
+    out_sx = None if s_arr is None else np.empty((nt, n))
     out_xf = np.empty((nt, n))
     out_frac = np.empty(nt)
     out_dev = np.empty(nt)
@@ -767,6 +768,7 @@ def check_tensors(values, what, group, *, sigma=None, units=None, tol=0.01, tol_
     out_disc = np.empty((nt, len(nf.tied)))
     out_ir = np.empty((nt, len(parts)))
     live = {"voigt": lay.voigt_comp, "full": lay.flat_comp, "components": np.zeros(n)}[kind] >= 0
+    aa = np.einsum("ik,il->ikl", nf.A, nf.A).reshape(n, k * k)
     chunk = 1024  # small blocks: cache-resident, and below the size where BLAS starts threads
     for lo in range(0, nt, chunk):
         hi = min(nt, lo + chunk)
@@ -788,12 +790,13 @@ def check_tensors(values, what, group, *, sigma=None, units=None, tol=0.01, tol_
                 raise DataError(f"sigma must be strictly positive standard uncertainties; tensor {lo + pos[0]} of "
                                 f"the stack has {sb.reshape(hi - lo, -1)[pos[0], pos[1]]:g}")
             sx = _to_components(sb, lay, kind, "sigma", float(symmetry_tol), positive=True)
+            out_sx[lo:hi] = sx
             w = 1.0 / sx**2
             if k:
-                gram = np.einsum("ik,ni,il->nkl", nf.A, w, nf.A)
+                gram = (w @ aa).reshape(hi - lo, k, k)  # A^T diag(w) A for every tensor at once
                 cov_a = np.linalg.inv(gram)
-                a = np.einsum("nkl,nl->nk", cov_a, (w * x) @ nf.A)
-                out_sa[lo:hi] = np.sqrt(np.maximum(np.einsum("nkk->nk", cov_a), 0.0))
+                a = np.matmul(cov_a, ((w * x) @ nf.A)[:, :, None])[:, :, 0]
+                out_sa[lo:hi] = np.sqrt(np.maximum(np.diagonal(cov_a, axis1=1, axis2=2), 0.0))
             else:
                 a = np.zeros((hi - lo, 0))
         out_a[lo:hi] = a
@@ -814,7 +817,7 @@ def check_tensors(values, what, group, *, sigma=None, units=None, tol=0.01, tol_
             out_ir[lo:hi] = np.sqrt(np.add.reduceat(proj * proj, bounds, axis=1)) / safe[:, None]
     x, a, sig_a, xf, frac, maxdev, chi2, disc, fr_ir = (out_x, out_a, out_sa, out_xf, out_frac, out_dev, out_chi,
                                                         out_disc, out_ir)
-    sx = None if s_arr is None else _to_components(s_arr, lay, kind, "sigma", float(symmetry_tol), positive=True)
+    sx = out_sx
     norm = "frobenius" if s_arr is None else "inverse covariance"
     p = None
     if chi2 is not None and dof > 0:
