@@ -110,7 +110,7 @@ def _ro_bool(a):
 
 @dataclass(frozen=True)
 class FittedConstant:
-    """A fitted independent constant.
+    """A fitted independent constant (see :class:`CheckReport`).
 
     Attributes
     ----------
@@ -229,8 +229,8 @@ class CheckReport:
         Best estimates of the independent constants, in the form's order.
     constants_covariance : numpy.ndarray or None
         float64 (k, k) propagated covariance of the constants.
-    forbidden : tuple of FittedConstant
-        Every component the symmetry requires to vanish (ForbiddenComponent).
+    forbidden : tuple of ForbiddenComponent
+        Every component the symmetry requires to vanish.
     relations : tuple of RelationCheck
         Every other tied component.
     symmetrized : numpy.ndarray
@@ -273,6 +273,13 @@ class CheckReport:
         The checked data.
     form : TensorForm
         The symbolic form used.
+
+    Examples
+    --------
+    >>> import numpy as np
+    >>> r = check_tensor(np.diag([2.0, 2.0, 3.0]), "dielectric_permittivity", "6/mmm")
+    >>> r.verdict, r.norm, [c.name for c in r.constants], len(r.forbidden), r.residual_fraction
+    ('consistent', 'frobenius', ['epsilon11', 'epsilon33'], 3, 0.0)
     """
 
     property: str
@@ -631,6 +638,13 @@ class BatchCheck:
         bool (N,) verdicts.
     tol, tol_kind, alpha
         The verdict's criteria (as in CheckReport).
+
+    Examples
+    --------
+    >>> import numpy as np
+    >>> b = check_tensors(np.stack([np.eye(3), np.diag([1.0, 2.0, 3.0])]), "thermal_expansion", "m-3m")
+    >>> b.passes.tolist(), b.names, b.constants[:, 0].tolist()
+    ([True, False], ('alpha11',), [1.0, 2.0])
     """
 
     property: str

@@ -97,6 +97,13 @@ class TensorData:
         Unit label, echoed in reports (never converted).
     source : str
         Where the numbers came from ('array', a file name, 'rotated ...').
+
+    Examples
+    --------
+    >>> import numpy as np
+    >>> d = tensor_data(np.diag([2.0, 2.0, 3.0]), "dielectric_permittivity", sigma=np.full((3, 3), 0.1))
+    >>> d.labels, d["epsilon33"], float(d.sigma[0])
+    (('epsilon11', 'epsilon12', 'epsilon13', 'epsilon22', 'epsilon23', 'epsilon33'), 3.0, 0.1)
     """
 
     property: Property

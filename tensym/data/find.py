@@ -85,6 +85,11 @@ class SymmetryClass:
         Symbol of the highest group, the one the data are oriented to.
     n_independent : int
         Independent constants of the class's form.
+
+    Examples
+    --------
+    >>> symmetry_classes("thermal_expansion")[1].groups[:3]
+    ('6/mmm', '4/mmm', '-3m')
     """
 
     name: str
@@ -139,6 +144,13 @@ class SymmetryFinding:
         What the property can and cannot tell apart.
     n_classes : int
         Number of symmetry classes of the property.
+
+    Examples
+    --------
+    >>> import numpy as np
+    >>> f = find_symmetry(np.eye(3) * 4.0, "thermal_conductivity")
+    >>> f.best.name, f.n_classes, len(f.candidates)
+    ('isotropic', 3, 3)
     """
 
     property: str
@@ -168,6 +180,15 @@ class SymmetryFinding:
         import json
 
         return json.dumps(self.record(), indent=2, ensure_ascii=False)
+
+    def latex(self, *, standalone=False):
+        """Math-mode LaTeX (amsmath); a complete document with ``standalone=True`` (see tensym.output)."""
+        from tensym.output import render
+
+        return render(self, format="latex", standalone=standalone)
+
+    def _repr_latex_(self):
+        return "$$" + self.latex() + "$$"
 
     def __repr__(self):
         b = self.best.name if self.best else "none"

@@ -121,6 +121,16 @@ def write_tensor(data, path, *, format="auto"):
         If ``data`` is not a TensorData, or a full covariance is to go to CSV.
     InvalidOptionError
         For a format outside the set.
+
+    Examples
+    --------
+    >>> import os, tempfile
+    >>> import numpy as np
+    >>> d = tensor_data(np.array([0.0, 0.0, -4.5]), "pyroelectric", units="uC/(m^2 K)")
+    >>> path = os.path.join(tempfile.mkdtemp(), "p.json")
+    >>> write_tensor(d, path)
+    >>> json.load(open(path))["values"]
+    [0.0, 0.0, -4.5]
     """
     if not isinstance(data, TensorData):
         raise DataError(f"write_tensor needs a TensorData (tensym.tensor_data), got {type(data).__name__}")
@@ -193,6 +203,16 @@ def read_tensor(path, what=None, *, format="auto", units=None, symmetry_tol=1e-8
         check of :func:`tensym.tensor_data`.
     InvalidOptionError
         For a format outside the set.
+
+    Examples
+    --------
+    >>> import os, tempfile
+    >>> path = os.path.join(tempfile.mkdtemp(), "d.csv")
+    >>> lines = ["# units: pC/N", "component,value", "d33,6", "d31,-1", "d32,-1"]
+    >>> _ = open(path, "w").write(chr(10).join(lines))
+    >>> d = read_tensor(path, "piezoelectric_d")
+    >>> d["d33"], d.units, d.source
+    (6.0, 'pC/N', 'd.csv')
     """
     fmt = _format_of(path, format)
     try:

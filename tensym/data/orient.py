@@ -115,6 +115,13 @@ class Orientation:
         Grid spacing in degrees.
     search : str
         The search in words (grid size, resolution, refined candidates).
+
+    Examples
+    --------
+    >>> import numpy as np
+    >>> o = orient(np.diag([2.0, 5.0, 2.0]), "dielectric_permittivity", "4/mmm")  # optic axis along y
+    >>> np.abs(o.rotation[2]).round(9).tolist(), o.continuous    # the standard z is the data's y
+    ([0.0, 1.0, 0.0], True)
     """
 
     property: str
@@ -182,6 +189,15 @@ class Orientation:
         import json
 
         return json.dumps(self.record(), indent=2)
+
+    def latex(self, *, standalone=False):
+        """Math-mode LaTeX (amsmath); a complete document with ``standalone=True`` (see tensym.output)."""
+        from tensym.output import render
+
+        return render(self, format="latex", standalone=standalone)
+
+    def _repr_latex_(self):
+        return "$$" + self.latex() + "$$"
 
     def __repr__(self):
         return (f"<Orientation {self.property} to {self.group}: {self.angle:.3f} deg, "

@@ -56,6 +56,11 @@ def as_rotation(rotation, *, proper=True, name="rotation"):
     DataError
         If the matrix is not 3x3, not finite, not orthogonal to 1e-6 or (when
         ``proper``) has determinant -1.
+
+    Examples
+    --------
+    >>> as_rotation(-np.eye(3), proper=False)[0].tolist()
+    [-1.0, -0.0, -0.0]
     """
     try:
         r = np.array(rotation, dtype=np.float64)
@@ -114,6 +119,12 @@ def axis_angle(rotation):
     ------
     DataError
         If ``rotation`` is not a proper rotation matrix.
+
+    Examples
+    --------
+    >>> axis, angle = axis_angle(rotation_from_axis_angle([1, 1, 1], 120))
+    >>> (axis * np.sqrt(3)).round(9).tolist(), round(angle, 9)
+    ([1.0, 1.0, 1.0], 120.0)
     """
     r = as_rotation(rotation)
     ang = float(_angles(r))
@@ -164,6 +175,11 @@ def euler_angles(rotation):
     ------
     DataError
         If ``rotation`` is not a proper rotation matrix.
+
+    Examples
+    --------
+    >>> [round(v, 9) for v in euler_angles(rotation_from_axis_angle([0, 1, 0], 30))]
+    [0.0, 30.0, 0.0]
     """
     r = as_rotation(rotation)
     beta = math.acos(max(-1.0, min(1.0, float(r[2, 2]))))

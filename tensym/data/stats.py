@@ -45,6 +45,16 @@ def chi2_sf(x, dof):
     -------
     numpy.ndarray or float
         float64 values in [0, 1]; a 0-d input gives a numpy float.
+
+    Raises
+    ------
+    DataError
+        For ``dof`` < 1.
+
+    Examples
+    --------
+    >>> chi2_sf([0.0, 2.0], 2).round(6).tolist()   # exp(-x/2) for 2 dof
+    [1.0, 0.367879]
     """
     k = int(dof)
     if k < 1:

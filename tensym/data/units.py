@@ -90,6 +90,11 @@ def check_units(units, what):
     DataError
         For a label that is not a string, or not accepted for the property; the
         message names the nearest accepted labels and lists them all.
+
+    Examples
+    --------
+    >>> check_units("pC/N", "piezoelectric_d"), check_units(None, "piezoelectric_d")
+    ('pC/N', None)
     """
     if units is None:
         return None

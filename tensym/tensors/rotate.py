@@ -33,6 +33,11 @@ def rotation_matrix_of(rotation):
     ------
     InvalidOperationError
         If it is not 3x3, has float entries, or is not orthogonal (exactly).
+
+    Examples
+    --------
+    >>> rotation_matrix_of([[0, -1, 0], [1, 0, 0], [0, 0, 1]]).det()
+    1
     """
     m = getattr(rotation, "matrix", rotation)
     try:
