@@ -29,13 +29,50 @@ from tensym.reps.cyclotomic import Cyclotomic
 __all__ = ["space_characters", "multiplicities", "to_int"]
 
 
+_CHAR_CACHE = {}
+
+
+def _space_key(space):
+    """A value key for spaces that have one (harmonics, polynomials, tensor specs), else None."""
+    from tensym.reps.spaces import HarmonicSpace, PolynomialSpace
+
+    if isinstance(space, (HarmonicSpace, PolynomialSpace)):
+        return ("fn", repr(space))
+    spec = getattr(space, "spec", None)
+    if spec is not None:
+        try:
+            hash(spec)
+        except TypeError:
+            return None
+        return ("spec", type(space).__name__, spec)
+    return None
+
+
 def space_characters(space, table):
-    """Exact characters of ``space`` at one representative of each class (table order)."""
+    """Exact characters of ``space`` at one representative of each class (table order).
+
+    Cached per (space, group setting) for spaces with a value key (harmonics,
+    polynomials, tensor specs).
+    """
+    skey = _space_key(space)
+    key = None
+    if skey is not None:
+        from tensym.reps.table import group_key
+
+        key = (skey, group_key(table.group))
+        hit = _CHAR_CACHE.get(key)
+        if hit is not None:
+            return hit
     out = []
     for c in table.classes:
         v = sp.sympify(space.character(c.representative))
         out.append(v)
-    return tuple(out)
+    out = tuple(out)
+    if key is not None:
+        if len(_CHAR_CACHE) > 4096:
+            _CHAR_CACHE.clear()
+        _CHAR_CACHE[key] = out
+    return out
 
 
 def to_int(value, what="multiplicity"):
