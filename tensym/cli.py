@@ -155,6 +155,16 @@ def _cmd_properties(args):
     return _emit([property_table()], args)
 
 
+def _group_lists():
+    from tensym.output.listings import GROUP_LISTS
+
+    try:
+        import tensym.groups.magnetic  # noqa: F401 - the magnetic list exists only with that module
+    except ImportError:  # pragma: no cover
+        return tuple(w for w in GROUP_LISTS if w != "magnetic")
+    return GROUP_LISTS
+
+
 def _split_syms(values):
     out = []
     for v in values or ():
@@ -223,11 +233,12 @@ def build_parser():
                                    "symbols,\norder, crystal system and setting.  With symbols: the operations "
                                    "of each group\nas coordinate triplets with their geometric meaning.",
                        epilog="examples:\n  tensym groups\n  tensym groups --which settings\n"
-                              "  tensym groups --which continuous --format markdown\n  tensym groups -3m D2d\n")
+                              "  tensym groups --which continuous --format markdown\n  tensym groups --which magnetic\n"
+                              "  tensym groups -3m D2d \"4'/m'm'm\"\n")
     p.add_argument("symbols", nargs="*", metavar="SYMBOL",
                    help="groups whose operations to list (Hermann-Mauguin or Schoenflies symbols)")
     p.add_argument("--which", default="crystallographic",
-                   choices=("crystallographic", "settings", "icosahedral", "continuous", "all"),
+                   choices=_group_lists(),
                    help="which groups to list (default: the 32 classes in their default settings)")
     _add_format(p)
     p.set_defaults(handler=_cmd_groups)

@@ -320,3 +320,21 @@ def test_data_file_errors(capsys, tmp_path):
     assert code == 2 and len(err.strip().splitlines()) == 1 and "Traceback" not in err
     path = _cubic(tmp_path, turned=False)
     assert_one_line_error(*run(capsys, "check", path, "m-3m", "--property", "piezoelectric_d"), "piezoelectric_d")
+
+
+def test_groups_magnetic_listing(capsys):
+    code, out, _ = run(capsys, "groups", "--which", "magnetic", "--format", "json")
+    assert code == 0
+    rows = json.loads(out)["rows"]
+    kinds = [r["kind"] for r in rows]
+    # Birss 1964: 122 magnetic point groups, 32 ordinary, 32 grey, 58 black-and-white
+    assert len(rows) == 122
+    assert (kinds.count("ordinary"), kinds.count("grey"), kinds.count("black-and-white")) == (32, 32, 58)
+
+
+def test_form_in_a_magnetic_group(capsys):
+    code, out, _ = run(capsys, "form", "-3'm'", "magnetoelectric")
+    assert code == 0
+    assert out.splitlines()[1].startswith("magnetic point group -3'm'")
+    # Dzyaloshinskii 1959: diagonal, alpha11 = alpha22, alpha33
+    assert "2 independent: alpha11, alpha33" in out and "  alpha22 = alpha11" in out

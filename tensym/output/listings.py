@@ -17,7 +17,7 @@ from tensym.output.table import Table
 __all__ = ["group_table", "property_table", "operations_table", "GROUP_LISTS"]
 
 #: Accepted values of ``which`` in :func:`group_table`.
-GROUP_LISTS = ("crystallographic", "settings", "icosahedral", "continuous", "all")
+GROUP_LISTS = ("crystallographic", "settings", "icosahedral", "continuous", "magnetic", "all")
 
 
 def _continuous_symbols():
@@ -35,13 +35,16 @@ def group_table(*, which="crystallographic"):
         'crystallographic': the 32 classes in their default settings;
         'settings': every orientation in the catalog (121, 112, -4m2, 312, ...);
         'icosahedral': 532 and -5-3m; 'continuous': SO(3), O(3) and the axial
-        groups; 'all': every row of the catalog and the continuous groups.
+        groups; 'magnetic': the 122 magnetic point groups (a table of its own,
+        see below); 'all': every row of the catalog and the continuous groups.
 
     Returns
     -------
     Table
         Columns: symbol (the setting symbol), Schoenflies, full symbol, order,
-        crystal system, setting (orientation in words).
+        crystal system, setting (orientation in words).  For 'magnetic': number,
+        symbol, Schoenflies (G(H) for black-and-white groups, G1' for grey ones),
+        kind, parent group, unitary subgroup, order.
 
     Raises
     ------
@@ -60,6 +63,8 @@ def group_table(*, which="crystallographic"):
 
     if which not in GROUP_LISTS:
         raise InvalidOptionError(f"which={which!r} is not one of {', '.join(GROUP_LISTS)}")
+    if which == "magnetic":
+        return _magnetic_table()
     symbols = []
     if which in ("crystallographic",):
         symbols = [point_group(s).setting_symbol for s in point_groups()]
@@ -99,6 +104,26 @@ def group_table(*, which="crystallographic"):
                                                         "system", "setting")),
         latex_spec="lllrlp{6.5cm}",
         notes=notes,
+    )
+
+
+def _magnetic_table():
+    from tensym.groups.magnetic import magnetic_point_groups
+
+    rows, lrows = [], []
+    for r in magnetic_point_groups():
+        rows.append((str(r.number), r.symbol, r.schoenflies, r.kind, r.parent, r.unitary, str(r.order)))
+        lrows.append((str(r.number), hm_latex(r.symbol), schoenflies_latex(r.schoenflies), f"\\text{{{r.kind}}}",
+                      hm_latex(r.parent), hm_latex(r.unitary), str(r.order)))
+    cols = ("#", "symbol", "Schoenflies", "kind", "parent", "unitary subgroup", "order")
+    return Table(
+        title="the 122 magnetic point groups",
+        columns=cols,
+        rows=tuple(rows),
+        latex_rows=tuple(lrows),
+        latex_columns=tuple(f"\\text{{{c}}}" for c in cols),
+        notes=("primed operations carry time reversal; grey groups contain 1' itself; black-and-white groups "
+               "G(H) have the unitary subgroup H of index 2 in the parent G",),
     )
 
 

@@ -109,10 +109,13 @@ _SCH = re.compile(r"^([A-Za-z])(.*)$")
 def schoenflies_latex(symbol):
     """Math-mode LaTeX of a Schoenflies symbol: the letter, the rest as subscript.
 
+    Magnetic groups: ``G(H)`` (black-and-white, H the unitary subgroup) and
+    ``G1'`` (grey) keep their parentheses and the ``1'``.
+
     Parameters
     ----------
     symbol : str
-        E.g. ``'D3d'``, ``'C∞h'``, ``'Kh'``, ``'T'``.
+        E.g. ``'D3d'``, ``'C∞h'``, ``'Kh'``, ``'T'``, ``'D3d(D3)'``, ``"C4v1'"``.
 
     Returns
     -------
@@ -122,8 +125,15 @@ def schoenflies_latex(symbol):
     --------
     >>> schoenflies_latex("C3i"), schoenflies_latex("T")
     ('C_{3i}', 'T')
+    >>> schoenflies_latex("D3d(D3)"), schoenflies_latex("C4v1'")
+    ('D_{3d}(D_{3})', "C_{4v}1'")
     """
     s = str(symbol).strip()
+    m = re.match(r"^(.*)\((.*)\)$", s)
+    if m:
+        return schoenflies_latex(m.group(1)) + "(" + schoenflies_latex(m.group(2)) + ")"
+    if s.endswith("1'") and len(s) > 2:
+        return schoenflies_latex(s[:-2]) + "1'"
     m = _SCH.match(s)
     if not m or not m.group(2):
         return s

@@ -120,6 +120,12 @@ def _group_names(group):
     return sym, sch, setting_symbol, setting
 
 
+def _kind(group):
+    if getattr(group, "is_continuous", False):
+        return "continuous group"
+    return "magnetic point group" if getattr(group, "is_magnetic", False) else "point group"
+
+
 def group_heading(group):
     """One line naming a group, its Schoenflies symbol and its setting.
 
@@ -139,15 +145,12 @@ def group_heading(group):
     'point group -42m (D2d), setting -4m2: -4 along z, mirror normals x and y, 2-folds along [110] and [1-10]'
     """
     sym, sch, setting_symbol, setting = _group_names(group)
-    continuous = bool(getattr(group, "is_continuous", False))
-    kind = "continuous group" if continuous else "point group"
+    kind = _kind(group)
     if not sym:
         order = getattr(group, "order", None)
-        head = f"unnamed {kind}" + (f" of order {order}" if order is not None and not continuous else "")
+        head = f"unnamed {kind}" + (f" of order {order}" if order is not None and "continuous" not in kind else "")
     else:
         head = f"{kind} {sym}" + (f" ({sch})" if sch and sch != sym else "")
-    if getattr(group, "is_magnetic", False) and not sym:
-        head = head.replace(kind, "magnetic " + kind)
     where = ""
     if setting_symbol and setting_symbol != sym:
         where = f"setting {setting_symbol}"
@@ -168,11 +171,10 @@ def group_heading_latex(group):
     from tensym.output.symbols import hm_latex, schoenflies_latex, text_latex
 
     sym, sch, setting_symbol, setting = _group_names(group)
-    continuous = bool(getattr(group, "is_continuous", False))
-    kind = "continuous group" if continuous else "point group"
+    kind = _kind(group)
     if not sym:
         order = getattr(group, "order", None)
-        head = f"unnamed {kind}" + (f" of order {order}" if order is not None and not continuous else "")
+        head = f"unnamed {kind}" + (f" of order {order}" if order is not None and "continuous" not in kind else "")
     else:
         head = f"{kind} ${hm_latex(sym)}$" + (f" (${schoenflies_latex(sch)}$)" if sch and sch != sym else "")
     where = ""

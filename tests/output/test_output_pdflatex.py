@@ -31,6 +31,7 @@ FORMS = [
     ("optical_activity", "inf2"),
     ("pyroelectric", "m-3m"),
     ("third_order_elastic", "6/mmm"),
+    ("magnetoelectric", "-3'm'"),
 ]
 
 

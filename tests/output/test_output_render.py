@@ -141,6 +141,9 @@ def test_symbol_latex_spellings():
     assert hm_latex("6/m 2/m 2/m") == r"6/m\,2/m\,2/m"
     assert schoenflies_latex("C3h") == "C_{3h}"
     assert schoenflies_latex("D∞h") == r"D_{\infty h}"
+    # common practice (Birss 1964 style): black-and-white groups G(H), grey groups G1'
+    assert schoenflies_latex("D3d(D3)") == "D_{3d}(D_{3})" and schoenflies_latex("C4v1'") == "C_{4v}1'"
+    assert hm_latex("-3'm'") == "\\bar{3}'m'"
     # Mulliken 1955: number and g/u as subscripts, primes kept
     assert mulliken_latex("T2g") == "T_{2g}"
     assert mulliken_latex("A1''") == "A_{1}''"
