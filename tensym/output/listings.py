@@ -121,7 +121,7 @@ def _magnetic_table():
         columns=cols,
         rows=tuple(rows),
         latex_rows=tuple(lrows),
-        latex_columns=tuple(f"\\text{{{c}}}" for c in cols),
+        latex_columns=tuple(f"\\text{{{text_latex(c)}}}" for c in cols),
         notes=("primed operations carry time reversal; grey groups contain 1' itself; black-and-white groups "
                "G(H) have the unitary subgroup H of index 2 in the parent G",),
     )

@@ -38,7 +38,8 @@ FORMS = [
 def _results():
     out = [tensym.tensor_form(p, g) for p, g in FORMS]
     out.append(tensym.tensor_form(tensym.TensorSpec(3, ["-jik"], axial=True), "4mm"))
-    out += [group_table(which="continuous"), property_table(), operations_table("3m")]
+    out += [group_table(which="continuous"), group_table(which="magnetic"), property_table(),
+            operations_table("3m"), operations_table("4'/m'm'm")]
     out += _layer_results()
     return out
 
