@@ -58,6 +58,11 @@ class Property:
         Words for headings, e.g. ``'piezoelectric strain coefficients d_iJ'``.
     convention : str
         The Voigt factor convention in words.
+    label_order : tuple of int or None
+        Order in which the label positions are compared when handbooks pick the
+        independent constants (None: left to right).  The electro-optic r_Ij is
+        read column-first, (j, I), as the transpose of d_jI: 3m has r13, r22,
+        r33, r51 (r42 = r51), like d31, d22, d33, d15.
     """
 
     name: str
@@ -67,6 +72,7 @@ class Property:
     halved: tuple
     title: str
     convention: str = "no Voigt factors"
+    label_order: tuple = None
 
     @property
     def has_voigt_pairs(self):
@@ -161,7 +167,7 @@ for _p in (
     Property("elastic_compliance", TensorSpec(4, _ELASTIC), "s", _V4, (True, True),
              "elastic compliance s_IJ", _HALF_S),
     Property("electro_optic", TensorSpec(3, ["jik"]), "r", _VR, (False, False),
-             "linear electro-optic coefficients r_Ij", "r_ijk = r_Ik (no factors)"),
+             "linear electro-optic coefficients r_Ij", "r_ijk = r_Ik (no factors)", (1, 0)),
     Property("photoelastic", TensorSpec(4, _PAIRS4), "p", _V4, (False, False),
              "elasto-optic (photoelastic) coefficients p_IJ", "p_ijkl = p_IJ (no factors; Nye)"),
     Property("piezo_optic", TensorSpec(4, _PAIRS4), "pi", _V4, (False, True),

@@ -19,7 +19,7 @@ import sympy as sp
 
 from tensym.errors import DataError, InvalidOptionError, InvalidSpecError
 from tensym.tensors.catalog import VOIGT_PAIRS, Property, get_property, property_names
-from tensym.tensors.solver import solve_invariants
+from tensym.tensors.solver import Solution, solve_invariants
 from tensym.tensors.spec import TensorSpec
 
 __all__ = ["TensorForm", "tensor_form", "as_property", "group_key"]
@@ -49,7 +49,8 @@ def as_property(what, *, symbol=None):
     if symbol is not None:
         if not isinstance(symbol, str) or not symbol.isidentifier():
             raise InvalidSpecError(f"symbol must be a name such as 'c' or 'chi', got {symbol!r}")
-        prop = Property(prop.name, prop.spec, symbol, prop.voigt_groups, prop.halved, prop.title, prop.convention)
+        prop = Property(prop.name, prop.spec, symbol, prop.voigt_groups, prop.halved, prop.title, prop.convention,
+                        prop.label_order)
     return prop
 
 
@@ -110,9 +111,42 @@ def _labelling(spec, groups, halved):
 
 
 @lru_cache(maxsize=512)
-def _solve_cached(spec, groups, halved, group_ref):
+def _solve_cached(spec, groups, halved, order, prefer, group_ref):
     labels, factors = _labelling(spec, groups, halved)
-    return solve_invariants(spec, group_ref.group, factors=factors, priority=labels)
+    natural = labels if order is None else tuple(tuple(lab[i] for i in order) for lab in labels)
+    rank = {lab: i for i, lab in enumerate(prefer)}
+    priority = tuple((0, (rank[lab],)) if lab in rank else (1, key) for lab, key in zip(labels, natural))
+    preferred = [o for o, lab in enumerate(labels) if lab in rank]
+    purity = [len(set(lab)) for lab in labels]
+    sol = solve_invariants(spec, group_ref.group, factors=factors, priority=priority, purity=purity,
+                           preferred=preferred)
+    # present the constants in natural label order (c11, c12, ...; r13, r22, r33, r51)
+    order_ = sorted(range(len(sol.free)), key=lambda i: labels[sol.free[i]])
+    pos = {old: new for new, old in enumerate(order_)}
+    coeffs = tuple(tuple(sorted(((pos[i], c) for i, c in terms), key=lambda t: t[0])) for terms in sol.coeffs)
+    return Solution(free=tuple(sol.free[i] for i in order_), coeffs=coeffs)
+
+
+def _parse_prefer(prop, prefer):
+    """Label tuples for the ``prefer`` option (names like 'C222' or '222')."""
+    if prefer is None:
+        return ()
+    if isinstance(prefer, str):
+        prefer = (prefer,)
+    labels, _ = _labelling(prop.spec, prop.voigt_groups, prop.halved)
+    known = {_label_text(lab): lab for lab in labels}
+    out = []
+    for name in prefer:
+        text = str(name).strip()
+        if text.startswith(prop.symbol):
+            text = text[len(prop.symbol):]
+        if text not in known:
+            sample = ", ".join(prop.symbol + _label_text(lab) for lab in labels[:4])
+            raise InvalidOptionError(
+                f"prefer: {name!r} is not a component of {prop.name}; components are named like {sample}, ..."
+            )
+        out.append(known[text])
+    return tuple(out)
 
 
 class _GroupRef:
@@ -363,7 +397,7 @@ class TensorForm:
                 f"({', '.join(map(str, self.symbols))})>")
 
 
-def tensor_form(what, group, *, symbol=None):
+def tensor_form(what, group, *, symbol=None, prefer=None):
     """The symmetry-reduced form of a property tensor in a point group.
 
     Parameters
@@ -374,6 +408,12 @@ def tensor_form(what, group, *, symbol=None):
         A point group, continuous or magnetic group, or its symbol.
     symbol : str, optional
         Replace the property's letter in the symbol names.
+    prefer : sequence of str, optional
+        Components to take as independent constants where the symmetry leaves
+        a choice, for a handbook that picks differently (e.g. ``["C222"]`` for
+        Brugger's hexagonal third-order constants).  By default the lowest
+        Voigt labels are independent, and in a family of proportional
+        components the one the others are whole multiples of (d22 in 3m).
 
     Returns
     -------
@@ -385,10 +425,14 @@ def tensor_form(what, group, *, symbol=None):
         For an unknown property name.
     UnknownGroupError
         For an unknown group symbol.
+    InvalidOptionError
+        For a ``prefer`` entry that names no component of the property.
 
     Examples
     --------
     >>> import tensym
+    >>> tensym.tensor_form("third_order_elastic", "6/mmm", prefer=["C222"]).symbols[:8]
+    (C111, C112, C113, C123, C133, C144, C155, C222)
     >>> f = tensym.tensor_form("piezoelectric_d", "32")
     >>> f.symbols
     (d11, d14)
@@ -397,7 +441,9 @@ def tensor_form(what, group, *, symbol=None):
     """
     prop = as_property(what, symbol=symbol)
     g = _resolve_group(group)
-    sol = _solve_cached(prop.spec, prop.voigt_groups, prop.halved, _GroupRef(g, group_key(g)))
+    prefer = _parse_prefer(prop, prefer)
+    sol = _solve_cached(prop.spec, prop.voigt_groups, prop.halved, prop.label_order, prefer,
+                        _GroupRef(g, group_key(g)))
     labels, factors = _labelling(prop.spec, prop.voigt_groups, prop.halved)
     syms = tuple(sp.Symbol(prop.symbol + _label_text(labels[o]), real=True) for o in sol.free)
     return TensorForm(

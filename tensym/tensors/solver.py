@@ -266,15 +266,15 @@ def _to_classes(row, roots, ratio, zero):
     return out
 
 
-def _rescale_proportional(live, coeffs, orb, keys):
-    """Re-pick the constant of a proportional family so that its members are integer multiples.
+def _rescale_proportional(live, coeffs, purity, keys, preferred):
+    """Re-pick the constant of each proportional family as handbooks do.
 
     A family is the set of components that are multiples of one free constant
-    alone (d16 = -2 d22, d21 = -d22 in 3m).  When some member has a smaller
-    coefficient than the free constant itself, that member becomes the constant
-    (handbook choice: the others are then whole multiples); among equal
-    coefficients the member with fewer distinct Cartesian indices is preferred
-    (d22 = d_222 before d21 = d_211), then the lower label.
+    alone (d16 = -2 d22, d21 = -d22 in 3m).  Its constant is the member with
+    the smallest coefficient (so the others are whole multiples of it), then
+    the fewest distinct Voigt digits (d22 before d16 and d21: the "pure"
+    component), then the lowest label in priority order (c14 before c24 and
+    c56 in 32).  A member named in ``preferred`` wins over all of these.
     """
     families = {}
     for o, terms in enumerate(coeffs):
@@ -282,8 +282,8 @@ def _rescale_proportional(live, coeffs, orb, keys):
             families.setdefault(terms[0][0], []).append((o, terms[0][1]))
     changes = {}
     for i, members in families.items():
-        best = min(members, key=lambda oc: (abs(oc[1]), len(set(orb.reps[oc[0]])), keys[oc[0]]))
-        if abs(best[1]) < 1:
+        best = min(members, key=lambda oc: (oc[0] not in preferred, abs(oc[1]), purity[oc[0]], keys[oc[0]]))
+        if best[0] != live[i]:
             changes[i] = best
     if not changes:
         return live, coeffs
@@ -303,7 +303,7 @@ def _rescale_proportional(live, coeffs, orb, keys):
     return [live[i] for i in order], new
 
 
-def solve_invariants(spec, group, factors=None, priority=None):
+def solve_invariants(spec, group, factors=None, priority=None, purity=None, preferred=()):
     """Solve for the invariant tensors of ``spec`` under ``group``.
 
     Parameters
@@ -315,6 +315,11 @@ def solve_invariants(spec, group, factors=None, priority=None):
     priority : sequence, optional
         Sort key per orbit; lower keys are preferred as independent unknowns
         (default: the representative index tuples).
+    purity : sequence of int, optional
+        Number of distinct Voigt digits per orbit (default: distinct entries of
+        the priority key); fewer wins within a proportional family.
+    preferred : collection of int
+        Orbits to keep as constants of their proportional family when possible.
 
     Returns
     -------
@@ -393,5 +398,7 @@ def solve_invariants(spec, group, factors=None, priority=None):
             coeffs.append(tuple(t for t in terms if t[1] != 0))
         else:
             coeffs.append(((pos[r], q),))
-    live, coeffs = _rescale_proportional(live, coeffs, orb, keys)
+    if purity is None:
+        purity = [len(set(k)) for k in keys]
+    live, coeffs = _rescale_proportional(live, coeffs, purity, keys, set(preferred))
     return Solution(free=tuple(live), coeffs=tuple(coeffs))

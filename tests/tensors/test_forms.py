@@ -129,3 +129,31 @@ def test_repr_reads_back():
               tensym.tensor_form("piezoelectric_d", "6mm", symbol="D")):
         g = eval(repr(f))
         assert g.symbols == f.symbols and g.voigt == f.voigt
+
+
+def test_class_3m_electro_optic_handbook_constants():
+    # Nye 1985 ch. XIII, class 3m with the mirror normal to x1 (LiNbO3 form; from memory):
+    # r13, r22, r33, r51 with r12 = -r22, r61 = -r22, r23 = r13, r42 = r51.
+    f = tensym.tensor_form("electro_optic", "3m")
+    assert [str(s) for s in f.symbols] == ["r13", "r22", "r33", "r51"]
+    r = _rels(f)
+    assert r["r12"] == -_S("r22") and r["r61"] == -_S("r22") and r["r23"] == _S("r13") and r["r42"] == _S("r51")
+
+
+def test_class_3m_shg_and_e_pick_the_pure_component():
+    # Boyd, Nonlinear Optics, class 3m: d15, d22, d31, d33 with d16 = d21 = -d22 (from memory);
+    # IEEE Std 176-1987: e15, e22, e31, e33 for 3m (from memory).
+    assert [str(s) for s in tensym.tensor_form("second_harmonic", "3m").symbols] == ["d15", "d22", "d31", "d33"]
+    assert [str(s) for s in tensym.tensor_form("piezoelectric_e", "3m").symbols] == ["e15", "e22", "e31", "e33"]
+
+
+def test_prefer_option():
+    # Brugger 1965 lists C222 (not C122) among the hexagonal third-order constants (from memory).
+    f = tensym.tensor_form("third_order_elastic", "6/mmm", prefer=["C222"])
+    assert _S("C222") in f.symbols and _S("C122") not in f.symbols
+    assert f.n_independent == 10
+    g = tensym.tensor_form("elastic_stiffness", "6/mmm", prefer="c66")
+    assert [str(s) for s in g.symbols] == ["c11", "c13", "c33", "c44", "c66"]
+    assert _rels(g)["c12"] == _S("c11") - 2 * _S("c66")
+    with pytest.raises(tensym.errors.InvalidOptionError, match="not a component of elastic_stiffness"):
+        tensym.tensor_form("elastic_stiffness", "6/mmm", prefer=["c77"])
