@@ -18,10 +18,14 @@ __all__ = ["errors"]
 from tensym.groups import (
     ContinuousGroup,
     GroupNames,
+    MagneticPointGroup,
     Operation,
     PointGroup,
     as_group,
     group_from_generators,
+    magnetic_class,
+    magnetic_point_groups,
+    parent_group,
     point_group,
     point_groups,
     recognise,
@@ -29,11 +33,13 @@ from tensym.groups import (
     rotation_about,
     rotation_from_axes,
     settings_table,
+    unitary_subgroup,
 )
 
 __all__ += ["ContinuousGroup", "GroupNames", "Operation", "PointGroup", "as_group", "group_from_generators",
             "point_group", "point_groups", "recognise", "reorient", "rotation_about", "rotation_from_axes",
             "settings_table"]
+__all__ += ["MagneticPointGroup", "magnetic_class", "magnetic_point_groups", "parent_group", "unitary_subgroup"]
 # --- representations --------------------------------------------------------
 from tensym.reps import (
     CharacterTable,

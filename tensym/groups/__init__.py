@@ -8,6 +8,9 @@
   :func:`rotation_from_axes`, :func:`rotation_about`: user groups, their names,
   re-oriented copies and exact rotations.
 * :func:`settings_table`, :func:`point_groups`: the catalog.
+* :func:`magnetic_point_groups`, :func:`magnetic_class`, :func:`unitary_subgroup`,
+  :func:`parent_group`: the 122 magnetic point groups (primed symbols such as
+  ``"m'm'm"`` also go through :func:`point_group`).
 
 Examples
 --------
@@ -20,6 +23,15 @@ Examples
 from tensym.groups.catalog import Setting, point_groups, settings_table
 from tensym.groups.continuous import ContinuousGroup
 from tensym.groups.finite import MAX_GROUP_ORDER, GroupNames, PointGroup
+from tensym.groups.magnetic import (
+    MAGNETIC_KINDS,
+    MagneticPointGroup,
+    magnetic_class,
+    magnetic_point_group,
+    magnetic_point_groups,
+    parent_group,
+    unitary_subgroup,
+)
 from tensym.groups.operations import HEXAGONAL_BASIS, Operation
 from tensym.groups.recognition import (
     group_from_generators,
@@ -47,4 +59,11 @@ __all__ = [
     "reorient",
     "rotation_from_axes",
     "rotation_about",
+    "MAGNETIC_KINDS",
+    "MagneticPointGroup",
+    "magnetic_class",
+    "magnetic_point_group",
+    "magnetic_point_groups",
+    "parent_group",
+    "unitary_subgroup",
 ]

@@ -994,7 +994,7 @@ def magnetic_group_from_generators(generators):
             if f and (k, False) in words:
                 clash = (k, words[(k, False)], w)
                 break
-        op = next(o for o in g.operations if _spatial_key(o) == clash[0])
+        op = _with_flag(next(o for o in g.operations if _spatial_key(o) == clash[0]), False)
         listing = ", ".join(f"g{j + 1} = {x.triplet()}" for j, x in enumerate(gens))
         good = _consistent_marks(gens)
         raise GroupClosureError(

@@ -14,7 +14,7 @@ group's, when one is; otherwise the default setting of the class and an exact
 proper rotation Q with ``{g} = {Q g_std Q^T}``.  For other finite groups (a
 5-fold axis, D7, ...) the names are built from the family and n ('5'/'C5',
 '-14m2'/'D7h' ...), ``crystal_system`` is empty and ``setting_symbol`` is empty.
-Magnetic groups (some primed operation) are left unnamed here.
+Magnetic groups (some primed operation) are named by :func:`tensym.groups.magnetic.magnetic_names`.
 
 Examples
 --------
@@ -292,7 +292,8 @@ def recognise(group):
         else the class's default setting with ``rotation`` the exact proper Q such
         that ``{g} = {Q g_std Q^T}``.  For other finite groups the symbols come
         from the family (e.g. '5'/'C5'), other fields empty.  A continuous group
-        keeps its own names; a magnetic group gets empty names.
+        keeps its own names; a magnetic group gets its magnetic names
+        (``tensym.groups.magnetic.magnetic_names``).
 
     Examples
     --------
@@ -310,7 +311,9 @@ def recognise(group):
         return group.names
     ops = group.operations
     if any(op.time_reversal for op in ops):
-        return GroupNames()
+        from tensym.groups.magnetic import magnetic_names  # magnetic groups are named there
+
+        return magnetic_names(group)
     hm, sch, laue = _family(ops)
     rows = [s for s in SETTINGS if s.hm == hm]
     if not rows:
@@ -385,7 +388,8 @@ def group_from_generators(generators, *, basis="cartesian"):
     GroupClosureError
         When the generators give an infinite group or one of order above
         MAX_GROUP_ORDER (240): a rotation angle that is not 360/n degrees, or
-        axes that do not fit together.
+        axes that do not fit together; or time-reversal marks (a trailing ``,-1``)
+        that contradict each other (see ``tensym.groups.magnetic``).
 
     Examples
     --------
@@ -404,6 +408,10 @@ def group_from_generators(generators, *, basis="cartesian"):
             f"generators must be a sequence of Operations, triplets or 3x3 matrices, got {generators!r}"
         ) from exc
     gens = [_to_operation(g, basis) for g in items]
+    if any(g.time_reversal for g in gens):
+        from tensym.groups.magnetic import magnetic_group_from_generators  # checks the marks, names the group
+
+        return magnetic_group_from_generators(gens)
     g = PointGroup.from_generators(gens, limit=MAX_GROUP_ORDER)
     return PointGroup(g.operations, gens, recognise(g))
 

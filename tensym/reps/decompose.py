@@ -162,6 +162,9 @@ def decompose(space, group, *, real=True):
         irreps, a TensorSpec or a catalog property.
     group : PointGroup, ContinuousGroup or str
         The group or its symbol (``'m-3m'``, ``'Oh'``, ``'O(3)'``, ``'Dinfh'``).
+        A magnetic group (``"-3'm'"``) gives a
+        :class:`~tensym.reps.magnetic.MagneticDecomposition`: over the irreps of
+        its unitary subgroup, with their Wigner types.
     real : bool, keyword-only
         Count complex-conjugate pairs of irreps as their real two-dimensional
         form (default, right for real spaces such as tensors and real
@@ -195,6 +198,10 @@ def decompose(space, group, *, real=True):
     V = as_space_arg(space)
     if not isinstance(real, bool):
         raise InvalidArgumentError(f"real must be True or False, got {real!r}")
+    if getattr(G, "is_magnetic", False):  # over the unitary subgroup, with Wigner types
+        from tensym.reps.magnetic import magnetic_decompose
+
+        return magnetic_decompose(V, G, real=real)
     if getattr(G, "is_continuous", False):
         from tensym.reps.continuous import continuous_decompose
 

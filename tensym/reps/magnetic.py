@@ -150,13 +150,28 @@ def _as_int(v, what):
 
 
 def _types(g, h, table):
-    primed = [op for op in g.operations if op.time_reversal]
+    """Corepresentation records of every complex irrep of H (exact Dimmock sums, class counts)."""
+    ops = g.operations
+    mt = g.multiplication_table
+    index = {op.key: i for i, op in enumerate(ops)}
+    class_at = {}
+    for ci, c in enumerate(table.classes):
+        for m in c.indices:
+            class_at[h.operations[m].key] = ci
+    primed = [i for i, op in enumerate(ops) if op.time_reversal]
+    counts = [0] * len(table.classes)
+    for i in primed:
+        counts[class_at[ops[int(mt[i, i])].key]] += 1
     a0 = primed[0]
-    a0_inv = a0.inverse()
-    squares = [a @ a for a in primed]
+    a0_inv = index[ops[a0].inverse().key]
+    perm = []  # class of a0^-1 h a0 for h in each class
+    for c in table.classes:
+        k = index[c.representative.key]
+        perm.append(class_at[ops[int(mt[int(mt[a0_inv, k]), a0])].key])
+    rows = {irr.label: table._cyclo(irr.label) for irr in table.irreps}
     out = []
     for irr in table.irreps:
-        s = _as_int(sum((table.character(irr.label, q) for q in squares), sp.Integer(0)),
+        s = _as_int(sum((n * x for n, x in zip(counts, irr.characters) if n), sp.Integer(0)),
                     f"Dimmock sum of {irr.label}")
         if s == h.order:
             kind = "a"
@@ -166,12 +181,23 @@ def _types(g, h, table):
             kind = "c"
         else:  # pragma: no cover - the sum is +-|H| or 0 for every irrep
             raise ArithmeticError(f"Dimmock sum {s} of {irr.label} is not +-{h.order} or 0")
-        conj = tuple(sp.expand(sp.conjugate(table.character(irr.label, a0_inv @ c.representative @ a0)))
-                     for c in table.classes)
-        partner = next(j.label for j in table.irreps
-                       if all(sp.simplify(x - y) == 0 for x, y in zip(j.characters, conj)))
+        row = rows[irr.label]
+        conj = tuple(row[perm[ci]].conjugate() for ci in range(len(table.classes)))
+        partner = next(lab for lab, r in rows.items() if tuple(r) == conj)
         out.append(Corepresentation(irr.label, irr.dim, kind, s, partner, irr.dim * (1 if kind == "a" else 2)))
     return tuple(out)
+
+
+_TYPES_CACHE = {}
+
+
+def _types_cached(g, h, table):
+    from tensym.reps.table import group_key
+
+    key = (group_key(g), group_key(h))
+    if key not in _TYPES_CACHE:
+        _TYPES_CACHE[key] = _types(g, h, table)
+    return _TYPES_CACHE[key]
 
 
 def corepresentations(group):
@@ -203,7 +229,7 @@ def corepresentations(group):
 
     g = _magnetic(group)
     h = unitary_subgroup(g)
-    return _types(g, h, finite_table(h))
+    return _types_cached(g, h, finite_table(h))
 
 
 def _linear(space, g, real):
@@ -289,7 +315,7 @@ def magnetic_decompose(space, group, *, real=True):
     table = finite_table(h)
     mult = multiplicities(table, space_characters(V, table), real=real)
     base = decomposition_from(table, mult, real)
-    types = {c.label: c for c in _types(g, h, table)}
+    types = {c.label: c for c in _types_cached(g, h, table)}
     wt, cm = [], []
     for lab, m in zip(base.labels, base.multiplicities):
         c = types.get(lab) or next(c for c in types.values()

@@ -166,9 +166,11 @@ def test_recognise_accepts_symbols_and_continuous_groups():
     assert recognise("SO(3)").hm == "SO(3)"
 
 
-def test_magnetic_groups_are_left_unnamed():
+def test_magnetic_groups_are_named_by_the_magnetic_module():
+    # issue 5: group_from_generators and recognise hand primed groups to tensym.groups.magnetic
     g = group_from_generators(["-x,-y,z,-1"])
-    assert g.symbol == "" and g.order == 2 and g.is_magnetic
+    assert g.symbol == "2'" and g.order == 2 and g.is_magnetic
+    assert recognise(g).schoenflies == "C2(C1)"
 
 
 def test_reorient_keeps_names_outside_the_catalog():
