@@ -189,7 +189,7 @@ def point_group(symbol):
         )
     key = normalise_symbol(symbol)
     magnetic = _magnetic_lookup()
-    if magnetic is not None and "'" in key:
+    if magnetic is not None and any(c in key for c in "'\u2032\u2019\u2033"):  # primes, also typographic
         return magnetic(symbol)
     target = _EXACT.get(key) or _LOWER.get(key.lower())
     if target is not None:

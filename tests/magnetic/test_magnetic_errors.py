@@ -76,3 +76,32 @@ def test_options_and_group_kinds():
         magnetic_decompose("magnetization", "4/m")
     with pytest.raises(InvalidGroupError, match="continuous"):
         magnetic_class("SO(3)")
+
+
+def test_decompose_options_and_spaces():
+    from tensym.errors import InvalidArgumentError
+
+    with pytest.raises(InvalidArgumentError, match="real must be True or False"):
+        magnetic_decompose("magnetization", "4'", real="yes")
+    with pytest.raises(InvalidArgumentError, match="expected a representation space"):
+        magnetic_decompose(3.5, "4'")
+
+
+def test_magnetic_class_of_unknown_or_non_crystallographic_groups():
+    import tensym
+
+    with pytest.raises(UnknownGroupError, match="nearest valid symbols"):
+        magnetic_class("qq")
+    # the icosahedral group Ih with its inversion primed: a magnetic group outside the 122
+    ih = tensym.point_group("-5-3m")
+    primed = tensym.group_from_generators(
+        [g if g.det == 1 else Operation(g.matrix, True) for g in ih.generators])
+    assert primed.schoenflies == "Ih(I)" and primed.symbol == ""
+    with pytest.raises(InvalidGroupError, match="not crystallographic"):
+        magnetic_class(primed)
+
+
+def test_typographic_primes_through_point_group():
+    import tensym
+
+    assert tensym.point_group("m\u2032m\u2032m") is tensym.point_group("m'm'm")
