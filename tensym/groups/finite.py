@@ -350,8 +350,12 @@ class PointGroup:
 
     @property
     def is_polar(self):
-        """True when some direction is left fixed by every (unprimed) operation (a pyroelectric class)."""
-        ops = [op for op in self._closed() if not op.time_reversal]
+        """True when some direction is left fixed by every operation (a pyroelectric class).
+
+        Time reversal does not act on a polar vector, so primed operations count by
+        their spatial part: -1' is not polar, m' is.
+        """
+        ops = self._closed()
         m = sum(op._num for op in ops) / len(ops)
         return bool(np.linalg.matrix_rank(m, tol=1e-9) > 0)
 

@@ -174,3 +174,13 @@ def test_reoriented_groups_are_recognised():
 def test_ordinary_groups_have_ordinary_class():
     assert magnetic_class("6/mmm").kind == "ordinary"
     assert magnetic_class(group_from_generators(["-y,x,z"])).symbol == "4"
+
+
+def test_is_polar_counts_spatial_parts():
+    # common practice: time reversal does not act on the polarization, so a magnetic group is
+    # polar exactly when its spatial parts leave a direction fixed (-1' is not, m' is).
+    import tensym
+
+    for sym in ["-1'", "m'", "4/m'", "m'm'2", "6'mm'"]:
+        g = tensym.point_group(sym)
+        assert g.is_polar == (tensym.tensor_form("pyroelectric", g).n_independent > 0)
