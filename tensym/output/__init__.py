@@ -21,5 +21,8 @@ Examples
 from tensym.output.dispatch import FORMATS, Captioned, as_record, register_renderer, render
 from tensym.output.document import latex_document
 from tensym.output.table import Table
+from tensym import display as _display
+
+_display.install(render)  # the core's results render through this hook, never by importing output
 
 __all__ = ["render", "latex_document", "as_record", "register_renderer", "FORMATS", "Table", "Captioned"]

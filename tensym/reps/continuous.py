@@ -379,6 +379,11 @@ class ContinuousTable:
         lines += ["\\hline", "\\end{tabular}"]
         return "\n".join(lines)
 
+    def _repr_latex_(self):
+        from tensym.display import show  # notebook display: the math-mode array that tensym.output installs
+
+        return "$$" + show(self, "latex") + "$$"
+
     def __repr__(self):
         return f"<ContinuousTable {self._group.names.hm} up to {self._up_to}: {' '.join(i.label for i in self._real)} ...>"
 

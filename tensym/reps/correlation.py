@@ -87,6 +87,11 @@ class CorrelationTable:
         lines += ["\\hline", "\\end{tabular}"]
         return "\n".join(lines)
 
+    def _repr_latex_(self):
+        from tensym.display import show  # notebook display: the math-mode array that tensym.output installs
+
+        return "$$" + show(self, "latex") + "$$"
+
     def __repr__(self):
         return f"<CorrelationTable {self.group} -> {self.subgroup}: {len(self.labels)} rows>"
 

@@ -393,6 +393,9 @@ class SymmetryAdaptedBasis:
         rows = [f"{s.irrep_latex or s.irrep} & {s.latex()} \\\\" for s in self.sets]
         return "\\begin{array}{ll}\n" + "\n".join(rows) + "\n\\end{array}"
 
+    def _repr_latex_(self):
+        return "$$" + self.latex() + "$$"
+
 
 def symmetry_adapted(space, group, *, real=True):
     """A symmetry-adapted orthonormal basis of a space: partner sets of every irrep.

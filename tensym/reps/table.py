@@ -331,7 +331,9 @@ class CharacterTable:
         return "\n".join(lines)
 
     def _repr_latex_(self):
-        return "$" + self.latex().replace("$", "") + "$"
+        from tensym.display import show  # notebook display: the math-mode array that tensym.output installs
+
+        return "$$" + show(self, "latex") + "$$"
 
     def __repr__(self):
         return (f"<CharacterTable {self._group_name()}: {len(self._classes)} classes, "

@@ -1,7 +1,7 @@
 """Text and LaTeX of a TensorForm, for its methods (the work is done in tensym.output).
 
-The tensors layer stays below output: these functions import
-:mod:`tensym.output.forms` only when they are called.
+The tensors layer stays below output: these functions go through the
+:mod:`tensym.display` hook that tensym.output installs, and never import it.
 
 Examples
 --------
@@ -34,9 +34,9 @@ def form_text(form):
     >>> form_text(tensor_form("pyroelectric", catalog_group("1"))).splitlines()[0]
     'pyroelectric coefficients p_i'
     """
-    from tensym.output.forms import form_text as _text
+    from tensym.display import show
 
-    return _text(form)
+    return show(form, "text")
 
 
 def form_latex(form, *, standalone=False):
@@ -49,6 +49,6 @@ def form_latex(form, *, standalone=False):
     >>> form_latex(tensor_form("pyroelectric", catalog_group("-1")))
     '\\\\begin{gathered}\\n\\\\bigl[p_{i}\\\\bigr] = \\\\begin{pmatrix}\\n0 \\\\\\\\\\n0 \\\\\\\\\\n0\\n\\\\end{pmatrix}\\n\\\\end{gathered}'
     """
-    from tensym.output.forms import form_latex as _latex
+    from tensym.display import show
 
-    return _latex(form, standalone=standalone)
+    return show(form, "latex", standalone=standalone)
