@@ -352,6 +352,9 @@ class CheckReport:
 
         return json.dumps(self.record(), indent=2, ensure_ascii=False)
 
+    def _repr_latex_(self):
+        return "$$" + self.latex() + "$$"
+
     def __repr__(self):
         return (f"<CheckReport {self.property} vs {self.group}: {self.verdict}, "
                 f"residual {self.residual_fraction:.3g}>")
@@ -688,6 +691,35 @@ class BatchCheck:
             raise IndexError(f"tensor index {i!r} is outside 0..{n - 1}")
         return check_tensor(values[i], what, group, sigma=None if sigma is None else sigma[i], units=self.units,
                             tol=self.tol, tol_kind=self.tol_kind, alpha=self.alpha, layout="components")
+
+    def text(self):
+        """Text table, one row per tensor (rendered by tensym.output through :mod:`tensym.display`)."""
+        from tensym.display import show
+
+        return show(self, "text")
+
+    __str__ = text
+
+    def markdown(self):
+        """Markdown table, one row per tensor."""
+        from tensym.display import show
+
+        return show(self, "markdown")
+
+    def latex(self, *, standalone=False):
+        """Math-mode LaTeX table, one row per tensor; a complete document with ``standalone=True``."""
+        from tensym.display import show
+
+        return show(self, "latex", standalone=standalone)
+
+    def to_json(self):
+        """JSON document of the table (str)."""
+        from tensym.display import show
+
+        return show(self, "json")
+
+    def _repr_latex_(self):
+        return "$$" + self.latex() + "$$"
 
     def __repr__(self):
         return (f"<BatchCheck {self.property} vs {self.group}: {int(self.passes.sum())} of {len(self)} "

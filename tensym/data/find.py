@@ -169,6 +169,21 @@ class SymmetryFinding:
 
     __str__ = text
 
+    def markdown(self):
+        """Markdown summary (rendered by tensym.output through :mod:`tensym.display`)."""
+        from tensym.display import show
+
+        return show(self, "markdown")
+
+    def latex(self, *, standalone=False):
+        """Math-mode LaTeX array of the classes tried; a document with ``standalone=True``."""
+        from tensym.display import show
+
+        return show(self, "latex", standalone=standalone)
+
+    def _repr_latex_(self):
+        return "$$" + self.latex() + "$$"
+
     def record(self):
         """JSON-ready dict (kind 'symmetry_finding')."""
         from tensym.data.render import finding_record

@@ -178,6 +178,21 @@ class Orientation:
 
     __str__ = text
 
+    def markdown(self):
+        """Markdown summary (rendered by tensym.output through :mod:`tensym.display`)."""
+        from tensym.display import show
+
+        return show(self, "markdown")
+
+    def latex(self, *, standalone=False):
+        """Math-mode LaTeX: matrix, angle, axis, residuals; a document with ``standalone=True``."""
+        from tensym.display import show
+
+        return show(self, "latex", standalone=standalone)
+
+    def _repr_latex_(self):
+        return "$$" + self.latex() + "$$"
+
     def record(self):
         """JSON-ready dict (kind 'orientation')."""
         from tensym.data.render import orientation_record
