@@ -13,8 +13,9 @@ crystallographic classes, the icosahedral groups and the continuous groups
 2. a set of groups whose generic tensor (random, seeded, constants of order 1)
    can be rotated into the form of a higher-symmetry set, with a residual
    below 1e-7, belongs to that set's class (for elasticity 4/m into 4/mmm by
-   a turn about z that removes c16, -3 into -3m).  Only sets with at most 3
-   more constants are tried (a rotation has 3 parameters), and only against a
+   a turn about z that removes c16, -3 into -3m).  Only sets with at most
+   3 - d more constants are tried, d the dimension of the rotations that map
+   the higher form to itself (a rotation has 3 parameters), and only against a
    set whose highest group is continuous or has an order that is a multiple
    of this set's (Lagrange), with the catalog's highest group standing for
    the stabiliser of a generic tensor of the set.
@@ -57,7 +58,7 @@ import numpy as np
 from tensym.data.check import _group_name
 from tensym.data.dataset import TensorData, tensor_data
 from tensym.data.model import layout as _layout, numeric_form
-from tensym.data.orient import Orientation, _Objective, _orient_core, default_resolution
+from tensym.data.orient import Orientation, _equivalent_rotations, _orient_core, default_resolution
 from tensym.data.rotation import random_rotations, shared_grid
 from tensym.errors import DataError
 from tensym.tensors.form import as_property
@@ -265,7 +266,11 @@ def _classes(prop):
         data = data.rotated(rot)
         for j in range(i):
             k_c, mem_c = blist[j]
-            if parent[j] != j or not 0 < k_b - k_c <= 3 or k_c == 0:
+            if parent[j] != j or k_c == 0:
+                continue
+            # the rotated copies of V_C fill at most k_C + (3 - Lie dimension of its stabiliser) dimensions
+            lie_c = len(_equivalent_rotations(mem_c[0][2], mem_c[0][1])[1])
+            if not 0 < k_b - k_c <= 3 - lie_c:
                 continue
             o_c, o_b = _order(mem_c[0][1]), _order(mem_b[0][1])
             if o_c <= o_b or (o_c != math.inf and o_c % o_b):
