@@ -482,6 +482,8 @@ def check_tensor(values, what=None, group=None, *, sigma=None, covariance=None, 
         For a ``tol_kind`` or ``layout`` outside its set.
     UnknownGroupError, UnknownPropertyError
         For unknown symbols or names.
+    InvalidGroupError
+        For a group argument that is neither a group nor a symbol.
 
     Examples
     --------
@@ -756,6 +758,8 @@ def check_tensors(values, what, group, *, sigma=None, units=None, tol=0.01, tol_
         unknown units, or a tolerance out of range.
     InvalidOptionError
         For a ``tol_kind`` or ``layout`` outside its set.
+    UnknownGroupError, UnknownPropertyError, InvalidGroupError
+        As in :func:`check_tensor`.
 
     Examples
     --------

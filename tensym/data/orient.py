@@ -532,6 +532,8 @@ def orient(values, what=None, group=None, *, resolution=None, refine=6, sigma=No
         ``refine`` < 1.
     UnknownGroupError
         For an unknown group symbol.
+    InvalidGroupError
+        For a group argument that is neither a group nor a symbol.
 
     Examples
     --------

@@ -55,6 +55,16 @@ UNITS = {
     "optical_activity": _NONE,
     "third_order_elastic": _PRESSURE,
     "fourth_order_elastic": _PRESSURE,
+    "magnetization": ("A/m", "kA/m", "emu/cm^3", "T", "mu_B", "mu_B/atom", "mu_B/f.u."),
+    "toroidal_moment": ("A m^2", "mu_B A", "mu_B nm"),
+    "magnetic_susceptibility": _NONE + ("SI", "emu/cm^3", "emu/(cm^3 Oe)", "emu/mol", "emu/(mol Oe)",
+                                        "m^3/mol"),
+    "magnetoelectric": ("s/m", "ps/m", "V/(cm Oe)", "mV/(cm Oe)", "V/(m T)"),
+    "piezomagnetic": ("1/T", "T^-1", "m/A", "A/(m Pa)", "ppm/T", "G/bar"),
+    "magnetostriction": ("m^2/A^2", "1/T^2", "T^-2", "ppm/T^2"),
+    "magnetoelectric_beta": ("s/A", "ps/A", "C/(m^2 T^2)", "1/(A m)"),
+    "magnetoelectric_gamma": ("s/V", "ps/V", "T m^2/V^2", "A/V^2"),
+    "faraday": _NONE + ("1/T", "T^-1", "1/Oe"),
 }
 _GENERIC = tuple(dict.fromkeys(u for us in UNITS.values() for u in us)) + ("arb", "arbitrary")
 _PAIRS = (("GPa", "1/GPa"), ("TPa", "1/TPa"), ("MPa", "1/MPa"), ("Pa", "1/Pa"), ("Mbar", "1/Mbar"),

@@ -280,6 +280,12 @@ def test_refusals():
         tensym.check_tensor(c, "elastic_stiffness")
     with pytest.raises(UnknownGroupError, match="nearest valid symbols"):
         tensym.check_tensor(c, "elastic_stiffness", "m-3x")
+    from tensym.errors import InvalidGroupError
+
+    with pytest.raises(InvalidGroupError, match="expected a point group or its symbol"):
+        tensym.check_tensor(c, "elastic_stiffness", 432)
+    with pytest.raises(InvalidGroupError, match="expected a point group or its symbol"):
+        tensym.orient(c, "elastic_stiffness", 432)
     with pytest.raises(InvalidOptionError, match="tol_kind='percent' is not one of relative, absolute"):
         tensym.check_tensor(c, "elastic_stiffness", "m-3m", tol_kind="percent")
     with pytest.raises(DataError, match="tol must be a finite number"):
@@ -316,3 +322,14 @@ def test_symbols_are_the_forms_symbols():
     r = tensym.check_tensor(_cubic(), "elastic_stiffness", "m-3m")
     assert tuple(k.symbol for k in r.constants) == tensym.tensor_form("elastic_stiffness", "m-3m").symbols
     assert all(isinstance(k.symbol, sp.Symbol) for k in r.constants)
+
+
+def test_component_labels_follow_the_forms_naming_for_every_property():
+    # the data layer labels components by the same rule as tensor_form (lowest Voigt label first)
+    for name in tensym.property_names():
+        labels = set(tensym.component_labels(name))
+        for g in ("1", "6/mmm", "-43m"):
+            f = tensym.tensor_form(name, g)
+            assert {str(s) for s in f.symbols} <= labels, (name, g)
+            assert {str(r.lhs) for r in f.relations} <= labels, (name, g)
+            assert len(f.symbols) + len(f.relations) == len(labels), (name, g)

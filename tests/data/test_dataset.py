@@ -181,3 +181,13 @@ def test_other_refusals():
         tensor_data(d, sigma=np.ones((6, 6)))
     with pytest.raises(KeyError, match="is not a component of elastic_stiffness"):
         d["c77"]
+
+
+def test_every_catalog_property_has_its_own_unit_labels():
+    from tensym.data.units import UNITS
+
+    assert set(tensym.property_names()) <= set(UNITS)
+    with pytest.raises(DataError, match="unknown units 'GPa' for magnetization"):
+        check_units("GPa", "magnetization")
+    # a bare TensorSpec accepts any label tensym knows
+    assert check_units("GPa", tensym.TensorSpec(2)) == "GPa"
