@@ -17,7 +17,8 @@ in one of two stated norms:
     projection of the data onto the invariant subspace (the group average of
     the tensor).  No uncertainties are propagated.
 ``'inverse covariance'`` (standard uncertainties or a covariance given)
-    W = C^-1: generalised least squares; cov(a) is the propagated
+    W = C^-1 over the distinct components (c12 and c21 are one measurement,
+    counted once): generalised least squares; cov(a) is the propagated
     uncertainty, chi2 = (x - A a)^T W (x - A a) with n - k degrees of freedom
     and its p-value P(chi2_{n-k} > chi2).
 
@@ -250,8 +251,9 @@ class CheckReport:
     irreps : tuple of IrrepResidual
         Residual by non-trivial irrep (empty for continuous groups).
     misorientation : float
-        First-order angle in degrees of the rotation that best explains the
-        residual: data ~ exp(w . L) applied to a symmetric tensor (active).
+        First-order angle in degrees of the rotation R_w that best explains the
+        residual: data ~ R_w . t_sym (active; valid for a few degrees).
+        ``tensym.orient`` would return about R_w^T.
     misorientation_axis : numpy.ndarray
         float64 (3,) unit axis of that rotation (z when the angle is 0).
     rotation_fraction : float

@@ -177,7 +177,9 @@ def test_misorientation_is_told_from_lower_symmetry():
     tilted = tensym.rotate_values(c, tensym.rotation_from_axis_angle(axis, 0.3), "elastic_stiffness")
     r = tensym.check_tensor(tilted, "elastic_stiffness", "6/mmm")
     assert r.misorientation == pytest.approx(0.3, rel=0.02)
-    assert abs(np.dot(r.misorientation_axis, axis)) == pytest.approx(1.0, abs=1e-3)
+    assert np.dot(r.misorientation_axis, axis) == pytest.approx(1.0, abs=1e-3)   # data = R_w . t_sym
+    o = tensym.orient(tilted, "elastic_stiffness", "6/mmm")   # orient undoes it: R = R_w^T
+    assert o.angle == pytest.approx(0.3, abs=1e-6) and np.dot(o.axis, axis) == pytest.approx(-1.0, abs=1e-9)
     assert r.rotation_fraction == pytest.approx(r.residual_fraction, rel=0.01)
     # first order in the angle: only the rotation-like irrep (E1g, the rotations about x and y)
     assert [p.label for p in r.irreps if p.fraction > 0.01 * r.residual_fraction] == ["E1g"]
