@@ -11,6 +11,7 @@ from tensym.tensors.catalog import Property, get_property, property_names, regis
 from tensym.tensors import magnetic_catalog  # noqa: F401  (registers the magnetic properties)
 from tensym.tensors.form import TensorForm, as_property, tensor_form
 from tensym.tensors.spec import MAX_RANK, TensorSpec
+from tensym.tensors.rotate import rotate_tensor
 from tensym.tensors.voigt import from_voigt, to_voigt, voigt_shape
 
 __all__ = [
@@ -23,6 +24,7 @@ __all__ = [
     "get_property",
     "property_names",
     "register_property",
+    "rotate_tensor",
     "tensor_form",
     "to_voigt",
     "voigt_shape",
