@@ -178,6 +178,21 @@ def rref_integer(rows, priority):
                 r[c] //= g
         return r
 
+    def _cancel(r, a, prow, p):
+        """r := prow[p] * r - a * prow, where a was r's entry in the pivot column p (popped)."""
+        b = prow[p]
+        for c in r:
+            r[c] *= b
+        for c, v in prow.items():
+            if c == p:
+                continue
+            nv = r.get(c, 0) - a * v
+            if nv:
+                r[c] = nv
+            else:
+                r.pop(c, None)
+        return r
+
     pivots = {}
     for row in rows:
         r = {c: int(v) for c, v in row.items() if v}
@@ -185,19 +200,7 @@ def rref_integer(rows, priority):
             a = r.pop(p, 0)
             if not a:
                 continue
-            prow = pivots[p]
-            b = prow[p]
-            # r := b * r - a * prow (pivot column cancels)
-            for c in r:
-                r[c] *= b
-            for c, v in prow.items():
-                if c == p:
-                    continue
-                nv = r.get(c, 0) - a * v
-                if nv:
-                    r[c] = nv
-                else:
-                    r.pop(c, None)
+            _cancel(r, a, pivots[p], p)
         r = {c: v for c, v in r.items() if v}
         if not r:
             continue
@@ -205,22 +208,10 @@ def rref_integer(rows, priority):
         if r[p] < 0:
             r = {c: -v for c, v in r.items()}
         r = _norm(r)
-        b = r[p]
-        for q, qrow in pivots.items():
+        for qrow in pivots.values():
             a = qrow.pop(p, 0)
-            if not a:
-                continue
-            for c in qrow:
-                qrow[c] *= b
-            for c, v in r.items():
-                if c == p:
-                    continue
-                nv = qrow.get(c, 0) - a * v
-                if nv:
-                    qrow[c] = nv
-                else:
-                    qrow.pop(c, None)
-            _norm(qrow)
+            if a:
+                _norm(_cancel(qrow, a, r, p))
         pivots[p] = r
     out = {}
     for p, r in pivots.items():

@@ -44,6 +44,8 @@ __all__ = [
     "quadratic_action",
     "float_action",
     "lie_action",
+    "lie_action_exact",
+    "integer_generator",
     "sympy_action",
 ]
 
@@ -173,12 +175,47 @@ def float_action(orbits, matrix):
     return _aggregate(orbits, k)
 
 
+def integer_generator(generator):
+    """An integer matrix proportional to a Lie generator L (same algebra), or None.
+
+    A generator of rotations about a rational direction, such as the
+    re-oriented ``Q L_z Q^T`` with entries in Q(sqrt 2), is a multiple of an
+    integer matrix; a generator about an irrational direction is not.
+    """
+    m = sp.Matrix(generator).applyfunc(lambda x: sp.radsimp(sp.nsimplify(x)))
+    nz = [x for x in m if x != 0]
+    if not nz:
+        return None
+    ratios = [sp.nsimplify(sp.radsimp(x / nz[0])) for x in m]
+    if not all(r.is_Rational for r in ratios):
+        return None
+    den = math.lcm(*[int(r.q) for r in ratios])
+    ints = [int(r * den) for r in ratios]
+    g = math.gcd(*ints)
+    return [[ints[3 * i + j] // g for j in range(3)] for i in range(3)]
+
+
 def lie_action(orbits, generator):
     """Exact integer matrix (numpy int64) of an integer antisymmetric generator L.
 
     (dL.T)_{i1..in} = sum over positions k and c of L[i_k, c] T_{i1..c..in}.
+
+    Raises
+    ------
+    ValueError
+        If L has non-integer entries (scale it with :func:`integer_generator`
+        first, or use :func:`lie_action_exact`).
     """
-    L = [[int(sp.Integer(x)) for x in row] for row in sp.Matrix(generator).tolist()]
+    rows = generator.tolist() if hasattr(generator, "tolist") else generator
+    L = []
+    for row in rows:
+        out = []
+        for x in row:
+            x = sp.sympify(x)
+            if not x.is_Integer:
+                raise ValueError(f"lie_action needs an integer generator, got entry {x}")
+            out.append(int(x))
+        L.append(out)
     dim = len(orbits.reps)
     N = np.zeros((dim, dim), dtype=np.int64)
     for o2, rep in enumerate(orbits.reps):
@@ -192,6 +229,24 @@ def lie_action(orbits, generator):
                 if o >= 0:
                     N[o2, o] += lv * s
     return N
+
+
+def lie_action_exact(orbits, generator):
+    """The same as :func:`lie_action` with sympy entries, for any exact generator."""
+    L = sp.Matrix(generator)
+    dim = len(orbits.reps)
+    N = sp.zeros(dim, dim)
+    for o2, rep in enumerate(orbits.reps):
+        for k, ik in enumerate(rep):
+            for c in range(3):
+                lv = L[ik, c]
+                if lv == 0:
+                    continue
+                idx = rep[:k] + (c,) + rep[k + 1:]
+                o, s = orbits.locate(idx)
+                if o >= 0:
+                    N[o2, o] += lv * s
+    return N.applyfunc(sp.expand)
 
 
 def sympy_action(orbits, matrix):

@@ -39,7 +39,9 @@ import sympy as sp
 
 from tensym.exact.linalg import QuadNumber, rref_integer, rref_sparse
 from tensym.tensors.kernels import (
+    integer_generator,
     lie_action,
+    lie_action_exact,
     monomial_action,
     monomial_form,
     quadratic_action,
@@ -158,6 +160,17 @@ def _class_projection(n, roots, ratio, zero):
 _DYADIC = 2.0**20
 
 
+def _integer_lie(group):
+    """Integer multiples of the group's Lie generators (each spans the same algebra)."""
+    out = []
+    for L in group.lie_generators:
+        m = integer_generator(L)
+        if m is None:
+            raise ArithmeticError("Lie generator about an irrational direction")
+        out.append(m)
+    return out
+
+
 def _rational_rows(spec, group, f, quads, roots, ratio, zero):
     """Integer constraint rows on the union-find classes (rational invariant subspace).
 
@@ -171,7 +184,7 @@ def _rational_rows(spec, group, f, quads, roots, ratio, zero):
     if not classes:
         return []
     blocks = []
-    for L in group.lie_generators:
+    for L in _integer_lie(group):
         blocks.append(lie_action(orb, L).astype(np.float64) * F)
     for q, par in quads:
         den = q[1]
@@ -202,16 +215,21 @@ def _rational_rows(spec, group, f, quads, roots, ratio, zero):
     return rows
 
 
+def _lie_rows(orb, group, f, conv):
+    """Rows N F of the (integer-scaled) Lie generators, entries converted by ``conv`` from Fractions."""
+    rows = []
+    for L in _integer_lie(group):
+        N = lie_action(orb, L)
+        for i in range(len(orb.reps)):
+            rows.append({int(j): conv(int(N[i, j]) * f[j]) for j in np.nonzero(N[i])[0]})
+    return rows
+
+
 def _field_rows(spec, group, f, quads, d, roots, ratio, zero):
     """Constraint rows in Q(sqrt(d)) (QuadNumber entries) on the union-find classes."""
     orb = spec.orbits
     n = len(orb.reps)
-    rows = []
-    for L in group.lie_generators:
-        N = lie_action(orb, L)
-        for i in range(n):
-            row = {int(j): QuadNumber(int(N[i, j]) * f[j], 0, d) for j in np.nonzero(N[i])[0]}
-            rows.append(row)
+    rows = _lie_rows(orb, group, f, lambda v: QuadNumber(v, 0, d))
     for q, par in quads:
         den = q[1]
         A, B = quadratic_action(orb, q)
@@ -229,10 +247,12 @@ def _general_rows(spec, group, f, quads, general, roots, ratio, zero):
     n = len(orb.reps)
     rows = []
     for L in group.lie_generators:
-        N = lie_action(orb, L)
+        N = lie_action_exact(orb, L)
         for i in range(n):
-            rows.append({int(j): sp.Integer(int(N[i, j])) * _q(f[j]) for j in np.nonzero(N[i])[0]})
-    mats = [(sympy_action(orb, g.matrix), par) for g, par in general]
+            row = {j: sp.nsimplify(N[i, j]) * _q(f[j]) for j in range(n) if N[i, j] != 0}
+            if row:
+                rows.append(row)
+    mats = [(sympy_action(orb, g.matrix), par) for g, par in general if g is not None]
     for q, par in quads:
         A, B = quadratic_action(orb, q)
         scale = sp.Integer(q[1]) ** spec.rank
@@ -362,6 +382,8 @@ def solve_invariants(spec, group, factors=None, priority=None, purity=None, pref
         if q[0] != 1:
             field_d = q[0]
         quads.append((q, par))
+    if any(integer_generator(L) is None for L in group.lie_generators):
+        general = general or [(None, None)]
     if general:
         work = _general_rows(spec, group, f, quads, general, roots, ratio, zero)
     elif field_d != 1 and not _galois_stable(group, field_d):
@@ -370,7 +392,7 @@ def solve_invariants(spec, group, factors=None, priority=None, purity=None, pref
         try:
             work = _rational_rows(spec, group, f, quads, roots, ratio, zero)
         except ArithmeticError:
-            work = _field_rows(spec, group, f, quads, max(field_d, 2) if field_d != 1 else 2, roots, ratio, zero)
+            work = _field_rows(spec, group, f, quads, field_d if field_d != 1 else 2, roots, ratio, zero)
 
     if all(isinstance(v, int) for row in work for v in row.values()):
         piv = rref_integer(work, priority=lambda c: keys[c])

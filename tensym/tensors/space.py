@@ -19,7 +19,7 @@ import sympy as sp
 
 from tensym.reps.space import Space
 from tensym.tensors.kernels import (
-    lie_action,
+    lie_action_exact,
     monomial_action,
     monomial_form,
     quadratic_action,
@@ -61,7 +61,7 @@ class TensorSpace(Space):
         return sp.ImmutableMatrix(sympy_action(orb, op.matrix) * par)
 
     def lie_action(self, generator):
-        return sp.ImmutableMatrix(lie_action(self.spec.orbits, generator).tolist())
+        return sp.ImmutableMatrix(lie_action_exact(self.spec.orbits, generator))
 
     def character(self, op):
         return self.spec.character(op)

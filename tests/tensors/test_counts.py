@@ -64,3 +64,13 @@ def test_sibling_properties_have_same_counts(a, b):
 ])
 def test_continuous_groups(prop, group, n):
     assert tensym.tensor_form(prop, group).n_independent == n
+
+
+@pytest.mark.parametrize("z,x", [((0, 1, 1), (1, 0, 0)), ((1, 1, 1), (1, -1, 0)), ((1, 2, 2), (0, 1, -1))])
+def test_reoriented_continuous_groups_keep_their_counts(z, x):
+    # Regression: a re-oriented Lie generator Q L Q^T has irrational entries (here in Q(sqrt 2),
+    # Q(sqrt 3)); it must be rescaled exactly, never truncated.  Transverse isotropy keeps 5
+    # elastic constants and C∞v 3 piezoelectric ones in any orientation (Nye 1985; from memory).
+    R = tensym.rotation_from_axes(new_z=z, new_x=x)
+    assert tensym.tensor_form("elastic_stiffness", tensym.reorient("Dinfh", R)).n_independent == 5
+    assert tensym.tensor_form("piezoelectric_d", tensym.reorient("Cinfv", R)).n_independent == 3
