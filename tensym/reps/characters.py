@@ -8,7 +8,9 @@ Method (Burnside's algorithm, with exact pinning)
    irreducibles are the common right eigenvectors of the integer matrices
    A_j[k, l] = c[j, k, l]; they are found as the eigenvectors of one random
    integer combination sum_j r_j A_j (in floating point, seeded), which has
-   distinct eigenvalues for almost every choice (it is redrawn otherwise).
+   distinct eigenvalues for almost every choice (it is redrawn otherwise,
+   from a wider range after five draws: with small weights, groups with many
+   one-dimensional irreps such as C2 x C2 x C2 x C2 often tie two eigenvalues).
 3. The degrees follow from sum_l |C_l| |chi(g_l)|^2 = |G|.
 4. Each value is then pinned exactly: for an element g of order n the
    eigenvalue multiplicities mu_k = (1/n) sum_j chi(g^j) zeta_n^(-jk) of its
@@ -136,8 +138,9 @@ def _numeric_characters(data, seed=20240531):
     r = len(data.sizes)
     rng = np.random.default_rng(seed)
     sizes = np.array(data.sizes, dtype=float)
-    for _attempt in range(20):
-        weights = rng.integers(-7, 8, size=r).astype(float)
+    for attempt in range(20):
+        bound = 8 if attempt < 5 else 10_000
+        weights = rng.integers(-bound + 1, bound, size=r).astype(float)
         A = np.einsum("j,jkl->kl", weights, data.coefficients.astype(float))
         vals, vecs = np.linalg.eig(A)
         gaps = np.abs(vals[:, None] - vals[None, :]) + np.eye(r) * 1e9

@@ -1,4 +1,4 @@
-"""Conventional class names and Mulliken labels of point-group irreps.
+r"""Conventional class names and Mulliken labels of point-group irreps.
 
 Everything here works on the group in its *standard frame*: when the group
 records a re-orientation ``names.rotation = Q`` (``g = Q g_std Q^T``), the
@@ -49,10 +49,27 @@ Mulliken labels (Mulliken 1955) and the choices where the rules leave one
 * g / u: character +d / -d at the inversion; ' / '': +d / -d at sigma_h when
   there is no inversion (Cs, C3h, D3h ...).
 
+Magnetic groups (time reversal θ = 1')
+--------------------------------------
+* a class of primed operations g' = g 1' is named by its spatial part
+  followed by ``·θ``: ``2C4·θ``, ``3σv·θ``; the class of 1' itself is ``θ``
+  (LaTeX ``2C_{4}\cdot\theta``, ``\theta``).  A plain prime is never used for
+  time reversal here, because C2' already names a class of perpendicular
+  2-folds;
+* the irreps of a grey group G1' carry their time parity after G's label:
+  ``+`` when 1' acts as +1 (time-even), ``-`` when it acts as -1 (time-odd):
+  ``A1g+``, ``Eu-``, ``1E+`` (LaTeX ``A_{1g}^{+}``, ``{A_{1}^{\prime}}^{-}``);
+* a black-and-white group is isomorphic to its parent through the spatial
+  parts, and its irreps keep the parent's labels.
+
 Examples
 --------
 >>> superscript(2)
 '²'
+>>> time_reversed_class_name("2C4", "2C_{4}")
+('2C4·θ', '2C_{4}\\cdot\\theta')
+>>> time_parity_label("A1'", "A_{1}^{\\prime}", "-")
+("A1'-", '{A_{1}^{\\prime}}^{-}')
 """
 
 from fractions import Fraction
@@ -60,7 +77,11 @@ import math
 
 import numpy as np
 
-__all__ = ["ClassInfo", "name_classes", "label_irreps", "superscript", "std_frame"]
+__all__ = ["ClassInfo", "name_classes", "label_irreps", "superscript", "std_frame", "time_reversed_class_name",
+           "time_parity_label", "TIME_REVERSAL_MARK"]
+
+#: The mark of time reversal 1' in class names (``2C4·θ``).
+TIME_REVERSAL_MARK = "θ"
 
 _TOL = 1e-9
 _SUP = str.maketrans("0123456789", "⁰¹²³⁴⁵⁶⁷⁸⁹")
@@ -69,6 +90,35 @@ _SUP = str.maketrans("0123456789", "⁰¹²³⁴⁵⁶⁷⁸⁹")
 def superscript(k):
     """Unicode superscript digits of an integer."""
     return str(k).translate(_SUP)
+
+
+def time_reversed_class_name(name, latex):
+    """Name (text, LaTeX) of the class C 1' of primed operations, from the name of C.
+
+    ``E`` becomes ``θ`` (the time reversal 1' itself), any other name gets the
+    suffix ``·θ``: ``'2C4'`` -> ``'2C4·θ'``, ``"3C2'"`` -> ``"3C2'·θ"``.
+    """
+    if name == "E":
+        return TIME_REVERSAL_MARK, "\\theta"
+    return f"{name}·{TIME_REVERSAL_MARK}", f"{latex}\\cdot\\theta"
+
+
+def time_parity_label(label, latex, sign):
+    """Label (text, LaTeX) of an irrep of a grey group: the label of G with its time parity ``'+'``/``'-'``.
+
+    In LaTeX the sign is a superscript; a label that has a superscript of its
+    own (a prime) is braced first, and the member index of a complex pair
+    (``{}^{1}E``) stays in front.
+    """
+    if sign not in ("+", "-"):
+        raise ValueError(f"time parity must be '+' or '-', got {sign!r}")
+    pre, body = "", latex
+    if latex.startswith("{}^{"):
+        cut = latex.index("}", 3) + 1
+        pre, body = latex[:cut], latex[cut:]
+    if "^" in body:
+        body = "{" + body + "}"
+    return label + sign, f"{pre}{body}^{{{sign}}}"
 
 
 def std_frame(group):

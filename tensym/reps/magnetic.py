@@ -30,10 +30,11 @@ gives two readings:
   and c, m/2 for b; the two members of a type-c pair name the same corep);
 * ``linear``: the real action of M on a real space such as a property tensor
   (primed operations act with their time-reversal sign), over the irreps of M
-  as an abstract group.  A black-and-white M is isomorphic to its parent G
-  through the spatial parts, so these are labelled by G's irreps; a grey
-  M = G x {1, 1'} has irreps Gamma+ (1' acts as +1) and Gamma- (as -1),
-  written with the suffix ``+`` or ``-``.  The multiplicity of the trivial
+  as an abstract group, i.e. over ``tensym.character_table(M)``.  A
+  black-and-white M is isomorphic to its parent G through the spatial parts,
+  so these are labelled by G's irreps; a grey M = G x {1, 1'} has irreps
+  Gamma+ (1' acts as +1) and Gamma- (as -1), written with the suffix ``+`` or
+  ``-`` (see :mod:`tensym.reps.table`).  The multiplicity of the trivial
   irrep here is the number of independent components of the tensor form.
 
 Examples
@@ -51,7 +52,7 @@ from dataclasses import dataclass, field
 import sympy as sp
 
 from tensym.errors import InvalidArgumentError, RepresentationError
-from tensym.groups.magnetic import magnetic_class, parent_group, unitary_subgroup
+from tensym.groups.magnetic import unitary_subgroup
 from tensym.reps.decompose import Decomposition, decomposition_from
 from tensym.reps.inputs import as_group_arg, as_space_arg
 from tensym.reps.reduction import multiplicities, space_characters, to_int
@@ -233,41 +234,12 @@ def corepresentations(group):
 
 
 def _linear(space, g, real):
-    """The linear decomposition over M as an abstract group (parent labels; grey: +/- suffix)."""
+    """The linear decomposition over M as an abstract group (its character table; grey: +/- suffix)."""
     from tensym.reps.table import finite_table
 
-    parent = parent_group(g)
-    table = finite_table(parent)
-    reps = [c.representative for c in table.classes]
-    if magnetic_class(g).kind == "grey":
-        even, odd = [], []
-        for r in reps:
-            plain = space.character(r)
-            primed = space.character(_primed(r))
-            even.append(sp.expand((plain + primed) / 2))
-            odd.append(sp.expand((plain - primed) / 2))
-        parts = []
-        for sign, chars in (("+", even), ("-", odd)):
-            mult = multiplicities(table, tuple(chars), real=real)
-            parts.append((sign, decomposition_from(table, mult, real)))
-        labels, ms, dims, tex = [], [], [], []
-        for sign, d in parts:
-            labels += [lab + sign for lab in d.labels]
-            ms += list(d.multiplicities)
-            dims += list(d.dims)
-            tex += [t + "^{" + sign + "}" for t in d.latex_labels]
-        valid = tuple(v + s for v in table.all_labels() for s in ("+", "-"))
-        return Decomposition(g.symbol, tuple(labels), tuple(ms), tuple(dims), tuple(tex), real, valid)
-    flags = {op.key[:-1]: op.time_reversal for op in g.operations}
-    chars = tuple(space.character(r if not flags[r.key[:-1]] else _primed(r)) for r in reps)
-    d = decomposition_from(table, multiplicities(table, chars, real=real), real)
+    table = finite_table(g)
+    d = decomposition_from(table, multiplicities(table, space_characters(space, table), real=real), real)
     return Decomposition(g.symbol, d.labels, d.multiplicities, d.dims, d.latex_labels, real, d._valid)
-
-
-def _primed(op):
-    from tensym.groups.operations import Operation
-
-    return Operation(op.matrix, not op.time_reversal)
 
 
 def magnetic_decompose(space, group, *, real=True):

@@ -4,7 +4,28 @@ A :class:`CharacterTable` is computed from the group alone (see
 :mod:`tensym.reps.characters` for the exact method and :mod:`tensym.reps.labels`
 for the naming conventions) and cached per group setting.  Irrep matrices are
 built on demand, exactly, inside spaces of harmonic polynomials (see
-:func:`irrep_matrices`).
+:func:`tensym.reps.irreps.build_matrices`).
+
+Magnetic groups
+---------------
+The table of a magnetic group is the table of the group *as an abstract
+group*: ordinary linear representations, with primed operations g' = g 1'
+treated as group elements like any other.  These are the characters of the
+real linear action on a property tensor (time-odd tensors change sign under
+g').  The antiunitary theory (Wigner's corepresentations of a quantum state
+space) is in :func:`tensym.reps.magnetic.corepresentations`.
+
+* Grey group G1' = G x {1, 1'}: built exactly from the table of G.  Classes
+  C (in G's order), then C 1', written ``C·θ`` (θ = 1', time reversal;
+  E 1' is written ``θ``).  Irreps Gamma+ (chi(g 1') = chi(g), time-even)
+  then Gamma- (chi(g 1') = -chi(g), time-odd), labelled with the suffix
+  ``+`` / ``-`` after G's Mulliken label (``A1g+``, ``Eu-``; LaTeX
+  ``A_{1g}^{+}``), as in the grey breakdowns of
+  :func:`tensym.reps.magnetic.magnetic_decompose`.
+* Black-and-white group M = H + (G - H)1': the spatial parts map M onto its
+  parent G isomorphically, so the classes and irreps are G's, labelled by the
+  spatial parts (G's Mulliken labels); a class of primed operations carries the
+  ``·θ`` mark (``2C4·θ`` in 4'/m).
 
 Examples
 --------
@@ -20,13 +41,15 @@ Examples
 
 from dataclasses import dataclass, field
 import difflib
+import re
 
 import sympy as sp
 
 from tensym.errors import UnknownIrrepError, RepresentationError
 from tensym.reps.characters import class_data, exact_characters
 from tensym.reps.cyclotomic import Cyclotomic
-from tensym.reps.labels import label_irreps, name_classes
+from tensym.groups.operations import Operation
+from tensym.reps.labels import label_irreps, name_classes, time_parity_label, time_reversed_class_name
 
 __all__ = ["ConjugacyClass", "Irrep", "CharacterTable", "character_table", "finite_table", "group_key"]
 
@@ -38,9 +61,11 @@ class ConjugacyClass:
     Attributes
     ----------
     name : str
-        Conventional name with the class size in front, e.g. ``'2C3'``, ``'3σv'``.
+        Conventional name with the class size in front, e.g. ``'2C3'``, ``'3σv'``;
+        a class of primed (time-reversed) operations ends in ``·θ``
+        (``'2C4·θ'``; the time reversal 1' itself is ``'θ'``).
     latex : str
-        The name in LaTeX (``'2C_{3}'``, ``'3\\\\sigma_{v}'``).
+        The name in LaTeX (``'2C_{3}'``, ``'3\\\\sigma_{v}'``, ``'2C_{4}\\\\cdot\\\\theta'``).
     size : int
         Number of elements.
     representative : Operation
@@ -64,7 +89,9 @@ class Irrep:
     ----------
     label : str
         Mulliken label (ASCII, prime as ``'``): ``'A1g'``, ``'E'``, ``"A2''"``,
-        ``'1E'`` / ``'2E'`` for the members of a complex-conjugate pair.
+        ``'1E'`` / ``'2E'`` for the members of a complex-conjugate pair; in a
+        grey group the time parity follows: ``'A1g+'`` (even under 1'),
+        ``'A1g-'`` (odd).
     latex : str
         The label in LaTeX, e.g. ``'A_{1g}'``, ``'{}^{1}E'``.
     dim : int
@@ -133,8 +160,9 @@ class CharacterTable:
     (1, -1/2 + sqrt(3)*I/2, -1/2 - sqrt(3)*I/2)
     """
 
-    def __init__(self, group, classes, irreps, rows, data, info):
+    def __init__(self, group, classes, irreps, rows, data, info, *, grey_of=None):
         self._group = group
+        self._grey_of = grey_of  # grey group: the table of its unitary subgroup H (G1' = H x {1, 1'})
         self._classes = tuple(classes)
         self._irreps = tuple(irreps)
         self._rows = rows  # label -> tuple of Cyclotomic in class order
@@ -150,8 +178,7 @@ class CharacterTable:
                 seen.add(i.real_label)
                 partner = self._by_label[i.conjugate]
                 chars = tuple(sp.expand(a + b) for a, b in zip(i.characters, partner.characters))
-                tex = i.latex.split("}", 1)[1] if i.latex.startswith("{}^{") else i.latex
-                tex = tex[1:] if tex.startswith("}") else tex
+                tex = re.sub(r"^\{\}\^\{\d+\}", "", i.latex)  # '{}^{1}E_{g}' -> 'E_{g}'
                 real.append(Irrep(i.real_label, tex, 2, chars, True, None, i.real_label))
         self._real = tuple(real)
         self._by_real = {i.label: i for i in self._real}
@@ -169,7 +196,7 @@ class CharacterTable:
     @property
     def order(self):
         """Group order."""
-        return self._data.order
+        return self._group.order
 
     @property
     def labels(self):
@@ -263,13 +290,29 @@ class CharacterTable:
         irr = self.irrep(label)
         if irr.label not in self._matrices:
             std = self._standard_copy()
-            if std is not None:
+            if self._grey_of is not None:
+                self._matrices[irr.label] = self._grey_matrices(irr)
+            elif std is not None:
                 self._matrices[irr.label] = std.matrices(irr.label)
             else:
                 from tensym.reps.irreps import build_matrices
 
                 self._matrices[irr.label] = build_matrices(self, irr)
         return self._matrices[irr.label]
+
+    def _grey_matrices(self, irr):
+        """Grey group: D(g 1') = +-D_H(g), the sign being the irrep's time parity."""
+        from tensym.groups.operations import Operation
+
+        base = self._grey_of
+        h = base.group
+        sign = -1 if irr.label.endswith("-") else 1
+        mats = base.matrices(irr.label[:-1])
+        out = []
+        for op in self._group.operations:
+            m = mats[h.index(Operation(op.matrix, False))]
+            out.append(-m if (op.time_reversal and sign < 0) else m)
+        return tuple(out)
 
     def _standard_copy(self):
         """For a re-oriented group: the table of the same elements turned back to the standard frame.
@@ -279,7 +322,7 @@ class CharacterTable:
         """
         names = getattr(self._group, "names", None)
         q = getattr(names, "rotation", None)
-        if q is None:
+        if q is None or self._grey_of is not None:
             return None
         from dataclasses import replace
 
@@ -311,8 +354,9 @@ class CharacterTable:
                 lines.append("-" * len(lines[0]))
         pairs = [i for i in self._real if i.label not in self._by_label]
         if pairs and not real:
+            plus = " + " if self._grey_of is not None else "+"  # grey labels end in + or - themselves
             lines.append("real forms: " + ", ".join(
-                f"{p.label} = {'+'.join(m.label for m in self._irreps if m.real_label == p.label)}" for p in pairs))
+                f"{p.label} = {plus.join(m.label for m in self._irreps if m.real_label == p.label)}" for p in pairs))
         return "\n".join(lines)
 
     def __str__(self):
@@ -349,9 +393,19 @@ class CharacterTable:
 def _latex_group(table):
     n = getattr(table._group, "names", None)
     s = n.schoenflies if n is not None and n.schoenflies else ""
-    if s and len(s) > 1:
+    return _schoenflies_latex(s) if s else "G"
+
+
+def _schoenflies_latex(s):
+    """'D4h' -> 'D_{4h}'; magnetic names: "D2h1'" -> "D_{2h}1'", 'D4h(C4h)' -> 'D_{4h}(C_{4h})'."""
+    if "(" in s and s.endswith(")"):
+        outer, inner = s[:-1].split("(", 1)
+        return _schoenflies_latex(outer) + "(" + _schoenflies_latex(inner) + ")"
+    if s.endswith("1'"):
+        return _schoenflies_latex(s[:-2]) + "1'"
+    if len(s) > 1:
         return s[0] + "_{" + s[1:] + "}"
-    return s or "G"
+    return s
 
 
 def _fmt(v):
@@ -372,10 +426,16 @@ _CACHE = {}
 
 def finite_table(group):
     """The (cached) character table of a finite group; private, see tensym.character_table."""
-    key = group_key(group)
+    names = getattr(group, "names", None)
+    # the names are part of the key: the same operations, unnamed, must not lend their name-less table
+    key = group_key(group) + (getattr(names, "hm", ""), getattr(names, "setting_symbol", ""))
     hit = _CACHE.get(key)
     if hit is not None:
         return hit
+    if _THETA in group:
+        table = _grey_table(group)
+        _CACHE[key] = table
+        return table
     data = class_data(group)
     rows = exact_characters(data)
     names, info = name_classes(group, data)
@@ -383,8 +443,12 @@ def finite_table(group):
     corder = sorted(range(len(names)), key=lambda c: names[c].key)
     iorder = sorted(range(len(rows)), key=lambda i: labels[i][2])
     ops = group.operations
-    classes = [ConjugacyClass(names[c].text, names[c].latex, data.sizes[c], ops[data.classes[c][0]],
-                              data.classes[c]) for c in corder]
+    classes = []
+    for c in corder:
+        rep = ops[data.classes[c][0]]
+        text, tex = (names[c].text, names[c].latex) if not rep.time_reversal else \
+            time_reversed_class_name(names[c].text, names[c].latex)
+        classes.append(ConjugacyClass(text, tex, data.sizes[c], rep, data.classes[c]))
     irreps = []
     cyc = {}
     for i in iorder:
@@ -401,13 +465,46 @@ def finite_table(group):
     return table
 
 
+_THETA = Operation(sp.ImmutableMatrix(sp.eye(3)), True)  # time reversal 1'
+
+
+def _grey_table(group):
+    """The table of a grey group G1' = H x {1, 1'} from the table of its unitary subgroup H.
+
+    Classes C and C 1' for each class C of H; irreps Gamma+ (chi(g 1') = chi(g))
+    and Gamma- (chi(g 1') = -chi(g)) for each irrep Gamma of H (all exact).
+    """
+    from tensym.groups.magnetic import unitary_subgroup
+
+    base = finite_table(unitary_subgroup(group))
+    h_ops = base.group.operations
+    classes = []
+    for timed in (False, True):
+        for c in base.classes:
+            idx = tuple(sorted(group.index(Operation(h_ops[m].matrix, timed)) for m in c.indices))
+            text, tex = (c.name, c.latex) if not timed else time_reversed_class_name(c.name, c.latex)
+            classes.append(ConjugacyClass(text, tex, c.size, group.operations[idx[0]], idx))
+    irreps, rows = [], {}
+    for sign in ("+", "-"):
+        s = 1 if sign == "+" else -1
+        for irr in base.irreps:
+            label, tex = time_parity_label(irr.label, irr.latex, sign)
+            conj = None if irr.conjugate is None else irr.conjugate + sign
+            chars = irr.characters + tuple(s * v for v in irr.characters)
+            irreps.append(Irrep(label, tex, irr.dim, chars, irr.is_real, conj, irr.real_label + sign))
+            row = base._rows[irr.label]
+            rows[label] = tuple(row) + tuple(x if s == 1 else -x for x in row)
+    return CharacterTable(group, classes, irreps, rows, None, None, grey_of=base)
+
+
 def character_table(group, *, up_to=4):
     """The exact character table of a point group.
 
     Parameters
     ----------
     group : PointGroup, ContinuousGroup or str
-        A group or its symbol (``'3m'``, ``'C3v'``, ``'Oh'``, ``'Ih'``, ``'O(3)'``, ``'Dinfh'``).
+        A group or its symbol (``'3m'``, ``'C3v'``, ``'Oh'``, ``'Ih'``, ``'O(3)'``, ``'Dinfh'``,
+        magnetic ``"4'/m"``, ``"mmm1'"``).
     up_to : int, keyword-only
         For a continuous group only: the largest l (SO(3), O(3)) or |m| (axial
         groups) shown; its irreps are infinitely many.
@@ -431,6 +528,15 @@ def character_table(group, *, up_to=4):
     labels as described in :mod:`tensym.reps.labels`.  The 32 crystallographic
     tables together take a few seconds the first time.
 
+    Magnetic groups get the table of the group as an abstract group (linear
+    representations; the characters of the real action on property tensors):
+    a grey group G1' the product of G's table with that of {1, 1'} (irreps
+    ``Gamma+`` even and ``Gamma-`` odd under 1', classes ``C`` and ``C·θ``), a
+    black-and-white group the table of its parent, labelled through the
+    spatial parts, with ``·θ`` on the classes of primed operations (see the
+    module docstring).  For the antiunitary theory of quantum states use
+    :func:`tensym.reps.magnetic.corepresentations`.
+
     Examples
     --------
     >>> t = character_table("3m")
@@ -442,6 +548,15 @@ def character_table(group, *, up_to=4):
     E   2   -1    0
     >>> character_table("Oh").irrep("T2g").characters[:5]
     (3, 0, -1, -1, 1)
+    >>> print(character_table("21'"))
+    21'  E  C2   θ  C2·θ
+    --------------------
+    A+   1   1   1     1
+    B+   1  -1   1    -1
+    A-   1   1  -1    -1
+    B-   1  -1  -1     1
+    >>> [c.name for c in character_table("4'").classes]
+    ['E', 'C4·θ', 'C2', 'C4³·θ']
     """
     from tensym.reps.inputs import as_group_arg
 
