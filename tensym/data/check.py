@@ -32,8 +32,10 @@ the other tied components, each compared with its relation evaluated on the
 with the measured c11 and c12), with the propagated uncertainty of the
 difference.
 
-The residual is broken down by the irreps of the group: the Frobenius-
-orthogonal residual splits into isotypic components (``tensym.data.irreps``);
+The residual is broken down by the irreps of the group (for a magnetic
+group, of its character table as an abstract group, the linear action
+including the time-reversal sign): the Frobenius-orthogonal residual splits
+into the isotypic components of every non-trivial irrep (``tensym.data.irreps``);
 each is reported as a fraction of ||t||_F, and the squares of the fractions add
 up to the square of the Frobenius residual fraction.  A small misorientation
 of a symmetric tensor only feeds the rotation-like irreps; the report also
@@ -191,7 +193,8 @@ class IrrepResidual:
     Attributes
     ----------
     label : str
-        Mulliken label of the real irrep.
+        Label of the real irrep (Mulliken; grey groups add the time parity,
+        ``'B1g+'`` / ``'B1g-'``).
     dim : int
         Its dimension.
     multiplicity : int
@@ -249,7 +252,13 @@ class CheckReport:
     dof : int
         n - k (distinct components minus constants).
     irreps : tuple of IrrepResidual
-        Residual by non-trivial irrep (empty for continuous groups).
+        Residual by irrep: every irrep of the tensor space except the trivial
+        one (dropped by its label, so the tuple is complete when the space has
+        no invariant at all), in table order; empty for continuous groups.
+        A magnetic group uses its own character table (the group as an
+        abstract group, ``tensym.character_table``): parent labels for a
+        black-and-white group, labels with the time parity for a grey one
+        (``B1g-``).
     misorientation : float
         First-order angle in degrees of the rotation R_w that best explains the
         residual: data ~ R_w . t_sym (active; valid for a few degrees).
@@ -383,6 +392,34 @@ def _options(tol, tol_kind, alpha):
 
 def _group_name(g):
     return getattr(g, "setting_symbol", "") or getattr(g, "symbol", "") or "unnamed group"
+
+
+def _trivial_label(g):
+    """Label of the trivial irrep of a finite group: the one whose characters are all 1.
+
+    For a magnetic group this is the irrep of the group as an abstract group
+    (``A1g+`` of a grey group, the parent's ``A1g`` of a black-and-white one):
+    the linear action on a tensor includes the time-reversal sign, so its
+    invariants are the tensor form's components.
+    """
+    from tensym.reps import character_table
+
+    table = character_table(g)
+    return next(i.label for i in table.real_irreps if all(v == 1 for v in i.characters))
+
+
+def _residual_projectors(prop, g):
+    """Isotypic projectors of the residual: every irrep in the tensor space except the trivial one.
+
+    The trivial irrep is dropped by its label, not by position: it is absent
+    from a space with no invariant (a pyroelectric vector in mmm, a
+    magnetization in a grey group), and then every projector is residual.
+    Continuous groups: no breakdown (empty tuple).
+    """
+    if getattr(g, "is_continuous", False):
+        return ()
+    trivial = _trivial_label(g)
+    return tuple(pr for pr in isotypic_projectors(prop, g) if pr.label != trivial)
 
 
 # --- kernels ---------------------------------------------------------------------------
@@ -540,13 +577,11 @@ def check_tensor(values, what=None, group=None, *, sigma=None, covariance=None, 
     p = None
     if chi2 is not None and dof > 0:
         p = float(chi2_sf(chi2, dof))
-    irreps = ()
-    if not getattr(g, "is_continuous", False):
-        parts = []
-        for pr in isotypic_projectors(prop, g)[1:]:
-            f = float(np.linalg.norm(pr.basis.T @ y)) / ynorm if ynorm > 0 else 0.0
-            parts.append(IrrepResidual(pr.label, pr.dim, pr.multiplicity, f, pr.rotation_like))
-        irreps = tuple(parts)
+    parts = []
+    for pr in _residual_projectors(prop, g):
+        f = float(np.linalg.norm(pr.basis.T @ y)) / ynorm if ynorm > 0 else 0.0
+        parts.append(IrrepResidual(pr.label, pr.dim, pr.multiplicity, f, pr.rotation_like))
+    irreps = tuple(parts)
     y_fro = nf.Q @ (nf.Q.T @ y)
     ang, axis, part = _misorientation(lay, nf, y, y_fro)
     sym_sigma = None
@@ -803,7 +838,7 @@ def check_tensors(values, what, group, *, sigma=None, units=None, tol=0.01, tol_
             raise DataError(f"sigma must have the shape of values {arr.shape}, got {s_arr.shape}")
     nt = arr.shape[0]
     k, n = nf.k, lay.n
-    parts = () if getattr(g, "is_continuous", False) else isotypic_projectors(prop, g)[1:]
+    parts = _residual_projectors(prop, g)
     labels_ir = tuple(pr.label for pr in parts)
     big = np.concatenate([pr.basis for pr in parts], axis=1) if parts else np.zeros((n, 0))
     bounds = np.cumsum([0] + [pr.basis.shape[1] for pr in parts])[:-1]
