@@ -197,15 +197,6 @@ class SymmetryFinding:
 
         return json.dumps(self.record(), indent=2, ensure_ascii=False)
 
-    def latex(self, *, standalone=False):
-        """Math-mode LaTeX (amsmath); a complete document with ``standalone=True`` (see tensym.output)."""
-        from tensym.output import render
-
-        return render(self, format="latex", standalone=standalone)
-
-    def _repr_latex_(self):
-        return "$$" + self.latex() + "$$"
-
     def __repr__(self):
         b = self.best.name if self.best else "none"
         return f"<SymmetryFinding {self.property}: {b} (tol {self.tol:g})>"

@@ -205,15 +205,6 @@ class Orientation:
 
         return json.dumps(self.record(), indent=2)
 
-    def latex(self, *, standalone=False):
-        """Math-mode LaTeX (amsmath); a complete document with ``standalone=True`` (see tensym.output)."""
-        from tensym.output import render
-
-        return render(self, format="latex", standalone=standalone)
-
-    def _repr_latex_(self):
-        return "$$" + self.latex() + "$$"
-
     def __repr__(self):
         return (f"<Orientation {self.property} to {self.group}: {self.angle:.3f} deg, "
                 f"residual {self.residual_fraction:.3g}>")

@@ -107,12 +107,18 @@ def _tex_label(label, letter):
     return f"{sym}_{{{label[len(letter):]}}}"
 
 
-def _tex_text(s):
-    return s.replace("\\", "\\textbackslash{}").replace("_", "\\_").replace("%", "\\%").replace("&", "\\&")
-
-
 def check_latex(r, *, standalone=False):
-    """LaTeX (amsmath) report: constants, forbidden components, relations, verdict."""
+    """LaTeX (amsmath) report: constants, forbidden components, relations, verdict.
+
+    Math-mode content; with ``standalone=True`` a complete document, made by
+    the renderer that :mod:`tensym.output` installs in :mod:`tensym.display`
+    (a heading with the verdict and units, this content in a display, the
+    reasons), so that the data layer never imports the output layer.
+    """
+    if standalone:
+        from tensym.display import show
+
+        return show(r, "latex", standalone=True)
     letter = r.data.property.symbol
     rows = [f"{_tex_label(c.name, letter)} &= {_tex_num(c.value, c.sigma)}" for c in r.constants]
     nz = [f for f in r.forbidden if f.value != 0.0]
@@ -121,16 +127,7 @@ def check_latex(r, *, standalone=False):
     broken = [t for t in r.relations if t.discrepancy != 0.0]
     rows += [f"{_tex_label(t.label, letter)} - \\left({sp.latex(t.relation.rhs)}\\right) &= "
              f"{_tex_num(t.discrepancy, t.sigma)}" for t in broken if t.relation is not None]
-    body = "\\begin{aligned}\n" + " \\\\\n".join(rows) + "\n\\end{aligned}" if rows else "\\text{no constants}"
-    if not standalone:
-        return body
-    head = (f"\\noindent {_tex_text(r.data.property.title)} checked against ${_tex_text(r.group)}$: "
-            f"\\textbf{{{r.verdict}}}"
-            + (f" (units: {_tex_text(r.units)})" if r.units else "") + ".\\\\\n"
-            + "\\\\\n".join(_tex_text(w) for w in r.reasons) + "\n")
-    from tensym.tensors.render import LATEX_END, LATEX_PREAMBLE
-
-    return LATEX_PREAMBLE + head + "\\[\n" + body + "\n\\]" + LATEX_END
+    return "\\begin{aligned}\n" + " \\\\\n".join(rows) + "\n\\end{aligned}" if rows else "\\text{no constants}"
 
 
 def _num(v):

@@ -12,16 +12,7 @@ Examples
 1 independent: p3
 """
 
-__all__ = ["form_text", "form_latex", "LATEX_PREAMBLE", "LATEX_END"]
-
-
-def __getattr__(name):
-    """LATEX_PREAMBLE and LATEX_END, the document frame of :mod:`tensym.output.document` (read lazily)."""
-    if name in ("LATEX_PREAMBLE", "LATEX_END"):
-        from tensym.output import document
-
-        return getattr(document, name)
-    raise AttributeError(f"module {__name__!r} has no attribute {name!r}")
+__all__ = ["form_text", "form_latex"]
 
 
 def form_text(form):
