@@ -46,9 +46,9 @@ import re
 import sympy as sp
 
 from tensym.errors import UnknownIrrepError, RepresentationError
+from tensym.groups.operations import Operation
 from tensym.reps.characters import class_data, exact_characters
 from tensym.reps.cyclotomic import Cyclotomic
-from tensym.groups.operations import Operation
 from tensym.reps.labels import label_irreps, name_classes, time_parity_label, time_reversed_class_name
 
 __all__ = ["ConjugacyClass", "Irrep", "CharacterTable", "character_table", "finite_table", "group_key"]
@@ -93,7 +93,7 @@ class Irrep:
         grey group the time parity follows: ``'A1g+'`` (even under 1'),
         ``'A1g-'`` (odd).
     latex : str
-        The label in LaTeX, e.g. ``'A_{1g}'``, ``'{}^{1}E'``.
+        The label in LaTeX, e.g. ``'A_{1g}'``, ``'{}^{1}E'``, ``'A_{1g}^{+}'``.
     dim : int
         Dimension.
     characters : tuple
@@ -302,8 +302,6 @@ class CharacterTable:
 
     def _grey_matrices(self, irr):
         """Grey group: D(g 1') = +-D_H(g), the sign being the irrep's time parity."""
-        from tensym.groups.operations import Operation
-
         base = self._grey_of
         h = base.group
         sign = -1 if irr.label.endswith("-") else 1
