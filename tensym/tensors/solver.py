@@ -323,6 +323,99 @@ def _rescale_proportional(live, coeffs, purity, keys, preferred):
     return [live[i] for i in order], new
 
 
+def _standard_frame(group):
+    """(standard group, Q) when ``group`` is a recognised re-orientation Q G_std Q^T, else None.
+
+    Magnetic groups are left to the direct path (the catalog holds their
+    unprimed parents).  For finite groups Q is verified on every standard
+    generator (numerically, to 1e-9 absolute).
+    """
+    names = getattr(group, "names", None)
+    Q = getattr(names, "rotation", None)
+    if Q is None or any(g.time_reversal for g in group.generators):
+        return None
+    try:
+        if getattr(group, "is_continuous", False):
+            from tensym.groups.continuous import continuous_group
+
+            std = continuous_group(names.hm)
+        else:
+            from tensym.groups.catalog import catalog_group
+
+            sym = getattr(names, "setting_symbol", "")
+            if not sym:
+                return None
+            std = catalog_group(sym)
+    except Exception:  # an unnamed or non-catalog group: use the direct path
+        return None
+    if not getattr(group, "is_continuous", False):
+        q = np.array([[float(x) for x in row] for row in sp.Matrix(Q).tolist()])
+        keys = set(group.operation_keys()) if hasattr(group, "operation_keys") else {op.key for op in group.operations}
+        for g in std.generators:
+            m = q @ g.numeric @ q.T
+            key = tuple(int(v) for v in np.rint(m.ravel() * 1e8)) + (int(g.time_reversal),)
+            if key not in keys:
+                return None
+    return std, sp.Matrix(Q)
+
+
+def _needs_general(group):
+    fields = set()
+    for g in group.generators:
+        if monomial_form(g) is not None:
+            continue
+        q = quadratic_form(g)
+        if q is None:
+            return True
+        if q[0] != 1:
+            fields.add(q[0])
+    return len(fields) > 1 or any(integer_generator(L) is None for L in group.lie_generators)
+
+
+def _radical_zero(x):
+    return sp.expand(sp.radsimp(sp.expand(x))) == 0
+
+
+def _solve_rotated(spec, std, Q, f, keys, purity, preferred):
+    """Solve in the standard setting, rotate the exact basis by Q, and re-pick the constants.
+
+    The invariant subspace in the given frame is Q applied to the standard
+    one.  Its basis (in Voigt variables) is reduced to row echelon form with
+    the columns in priority order, so the pivots are the first independent
+    components - the same constants the direct reduction would keep.
+    """
+    orb = spec.orbits
+    n = len(orb.reps)
+    base = solve_invariants(spec, std, factors=f, priority=keys, purity=purity)
+    k = len(base.free)
+    if k == 0:
+        return base
+    B = sp.zeros(n, k)
+    for o, terms in enumerate(base.coeffs):
+        for i, c in terms:
+            B[o, i] = c * _q(f[o])
+    par = 1  # proper rotation: no axial sign
+    rotated = (sympy_action(orb, Q) * B * par).applyfunc(lambda x: sp.radsimp(sp.expand(x)))
+    order = sorted(range(n), key=lambda o: keys[o])
+    A = sp.Matrix(k, n, lambda i, j: rotated[order[j], i] / _q(f[order[j]]))
+    R, piv = A.rref(iszerofunc=_radical_zero, simplify=lambda x: sp.radsimp(sp.expand(x)))
+    pivots = [order[j] for j in piv]
+    pos_in = {o: j for j, o in enumerate(order)}
+    free = sorted(pivots, key=lambda o: keys[o])
+    index = {o: i for i, o in enumerate(free)}
+    row_of = {order[j]: r for r, j in enumerate(piv)}
+    coeffs = []
+    for o in range(n):
+        terms = []
+        for p in free:
+            c = sp.radsimp(sp.expand(R[row_of[p], pos_in[o]]))
+            if c != 0:
+                terms.append((index[p], sp.nsimplify(c) if c.is_Rational else c))
+        coeffs.append(tuple(terms))
+    live, coeffs = _rescale_proportional(free, coeffs, purity, keys, set(preferred))
+    return Solution(free=tuple(live), coeffs=tuple(coeffs))
+
+
 def solve_invariants(spec, group, factors=None, priority=None, purity=None, preferred=()):
     """Solve for the invariant tensors of ``spec`` under ``group``.
 
@@ -353,6 +446,12 @@ def solve_invariants(spec, group, factors=None, priority=None, purity=None, pref
         if x == 0 or (abs(x.numerator) & (abs(x.numerator) - 1)) or (x.denominator & (x.denominator - 1)):
             raise ValueError(f"Voigt factors must be signed powers of two, got {x}")
     ff = [float(x) for x in f]
+    if purity is None:
+        purity = [len(set(k)) for k in keys]
+    if _needs_general(group):
+        frame = _standard_frame(group)
+        if frame is not None:
+            return _solve_rotated(spec, frame[0], frame[1], f, keys, purity, preferred)
     uf = _UnionFind(n, lambda o: keys[o])
     dense = []
     for g in group.generators:
@@ -420,7 +519,5 @@ def solve_invariants(spec, group, factors=None, priority=None, purity=None, pref
             coeffs.append(tuple(t for t in terms if t[1] != 0))
         else:
             coeffs.append(((pos[r], q),))
-    if purity is None:
-        purity = [len(set(k)) for k in keys]
     live, coeffs = _rescale_proportional(live, coeffs, purity, keys, set(preferred))
     return Solution(free=tuple(live), coeffs=tuple(coeffs))

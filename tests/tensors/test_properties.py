@@ -28,7 +28,7 @@ def _spec(rank, syms, axial):
     return tensym.TensorSpec(rank, syms, axial=axial)
 
 
-@settings(max_examples=25, deadline=None, suppress_health_check=[HealthCheck.too_slow])
+@settings(max_examples=30, deadline=None, suppress_health_check=[HealthCheck.too_slow])
 @given(st.sampled_from(GROUPS), st.sampled_from([2, 3, 4]), st.data(), st.booleans(), st.sampled_from(FRAMES))
 def test_invariant_and_dimension(symbol, rank, data, axial, frame):
     syms = data.draw(st.sampled_from(SYMS[rank]))
@@ -36,10 +36,6 @@ def test_invariant_and_dimension(symbol, rank, data, axial, frame):
     group = tensym.point_group(symbol)
     if frame is not None:
         x, z = frame
-        if rank == 4 and frame in FRAMES[1:3]:
-            rank_ok = True  # slow general path, keep it to small groups
-            if group.order > 8:
-                group = tensym.point_group("mm2")
         group = reorient(group, rotation_from_axes(new_x=x, new_z=z))
     form = tensym.tensor_form(spec, group)
     # dimension: brute-force Reynolds average (numeric, whole group)
