@@ -15,7 +15,7 @@ Examples
 
 from tensym.errors import InvalidOptionError
 
-__all__ = ["show", "install", "FORMATS"]
+__all__ = ["show", "install", "FORMATS", "Displayed"]
 
 #: Formats a renderer must accept.
 FORMATS = ("text", "latex", "markdown", "json")
@@ -41,3 +41,18 @@ def show(result, fmt, **options):
     if not _RENDERER:
         raise InvalidOptionError("no renderer installed: rendering lives in tensym.output (import tensym)")
     return _RENDERER[0](result, format=fmt, **options)
+
+
+class Displayed:
+    """Mixin: ``markdown()``, ``latex()`` and the notebook display of a result, through :func:`show`."""
+
+    def markdown(self):
+        """Markdown summary (rendered by tensym.output through :mod:`tensym.display`)."""
+        return show(self, "markdown")
+
+    def latex(self, *, standalone=False):
+        """Math-mode LaTeX (amsmath); a complete document with ``standalone=True``."""
+        return show(self, "latex", standalone=standalone)
+
+    def _repr_latex_(self):
+        return "$$" + self.latex() + "$$"

@@ -55,6 +55,7 @@ import numbers
 
 import numpy as np
 
+from tensym.display import Displayed
 from tensym.data.check import _group_name
 from tensym.data.dataset import TensorData, tensor_data
 from tensym.data.model import layout as _layout, numeric_form
@@ -126,7 +127,7 @@ class SymmetryCandidate:
 
 
 @dataclass(frozen=True, eq=False)
-class SymmetryFinding:
+class SymmetryFinding(Displayed):
     """The result of :func:`find_symmetry`.
 
     Attributes
@@ -169,21 +170,6 @@ class SymmetryFinding:
         return finding_text(self)
 
     __str__ = text
-
-    def markdown(self):
-        """Markdown summary (rendered by tensym.output through :mod:`tensym.display`)."""
-        from tensym.display import show
-
-        return show(self, "markdown")
-
-    def latex(self, *, standalone=False):
-        """Math-mode LaTeX array of the classes tried; a document with ``standalone=True``."""
-        from tensym.display import show
-
-        return show(self, "latex", standalone=standalone)
-
-    def _repr_latex_(self):
-        return "$$" + self.latex() + "$$"
 
     def record(self):
         """JSON-ready dict (kind 'symmetry_finding')."""

@@ -53,6 +53,7 @@ import numbers
 
 import numpy as np
 
+from tensym.display import Displayed
 from tensym.data.check import _group, _group_name, _lie_matrices
 from tensym.data.dataset import TensorData, tensor_data
 from tensym.data.model import group_space, layout as _layout, numeric_form, pair_rotation, rotate_full
@@ -80,7 +81,7 @@ def default_resolution(rank):
 
 
 @dataclass(frozen=True, eq=False)
-class Orientation:
+class Orientation(Displayed):
     """The result of :func:`orient` (immutable; arrays read-only).
 
     Attributes
@@ -177,21 +178,6 @@ class Orientation:
         return orientation_text(self)
 
     __str__ = text
-
-    def markdown(self):
-        """Markdown summary (rendered by tensym.output through :mod:`tensym.display`)."""
-        from tensym.display import show
-
-        return show(self, "markdown")
-
-    def latex(self, *, standalone=False):
-        """Math-mode LaTeX: matrix, angle, axis, residuals; a document with ``standalone=True``."""
-        from tensym.display import show
-
-        return show(self, "latex", standalone=standalone)
-
-    def _repr_latex_(self):
-        return "$$" + self.latex() + "$$"
 
     def record(self):
         """JSON-ready dict (kind 'orientation')."""
