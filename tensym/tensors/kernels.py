@@ -42,6 +42,7 @@ __all__ = [
     "monomial_action",
     "quadratic_form",
     "quadratic_action",
+    "fits_int64",
     "float_action",
     "lie_action",
     "lie_action_exact",
@@ -143,23 +144,45 @@ def _rep_array(orbits):
 
 
 def quadratic_action(orbits, qform):
-    """Integer arrays (A, B) with M = (A + sqrt(d) B) / D**rank, for qform = (d, D, A, B)."""
+    """Integer arrays (A, B) with M = (A + sqrt(d) B) / D**rank, for qform = (d, D, A, B).
+
+    The entries are numpy int64 when the a-priori bound
+    ``3**rank * ((1 + d) * max|A1, B1|)**rank`` is below 2**62 (then no
+    intermediate value can overflow: each Kronecker step multiplies the bound
+    by (1 + d) max, and the orbit sum adds at most 3**rank terms), and numpy
+    object arrays of Python integers otherwise.
+    """
     d, _, A1, B1 = qform
     reps = _rep_array(orbits)
     n = orbits.rank
     if n == 0:
         one = np.ones((1, 1), dtype=np.int64)
         return one, np.zeros_like(one)
+    amax = max(int(np.abs(A1).max()), int(np.abs(B1).max()), 1)
+    if not fits_int64(n, d, amax):
+        A1 = A1.astype(object)
+        B1 = B1.astype(object)
     k0 = A1[reps[:, 0], :]
     k1 = B1[reps[:, 0], :]
     for k in range(1, n):
         r0 = A1[reps[:, k], :]
         r1 = B1[reps[:, k], :]
-        n0 = np.einsum("da,db->dab", k0, r0) + d * np.einsum("da,db->dab", k1, r1)
-        n1 = np.einsum("da,db->dab", k0, r1) + np.einsum("da,db->dab", k1, r0)
+        n0 = k0[:, :, None] * r0[:, None, :] + d * (k1[:, :, None] * r1[:, None, :])
+        n1 = k0[:, :, None] * r1[:, None, :] + k1[:, :, None] * r0[:, None, :]
         k0 = n0.reshape(len(reps), -1)
         k1 = n1.reshape(len(reps), -1)
     return _aggregate(orbits, k0), _aggregate(orbits, k1)
+
+
+def fits_int64(rank, d, amax):
+    """True when the Kronecker products of :func:`quadratic_action` provably stay below 2**62.
+
+    Examples
+    --------
+    >>> fits_int64(4, 3, 2), fits_int64(4, 1, 1261**2)
+    (True, False)
+    """
+    return 3**rank * ((1 + d) * amax) ** rank < 2**62
 
 
 def float_action(orbits, matrix):

@@ -33,15 +33,18 @@ Examples
 
 from dataclasses import dataclass
 from fractions import Fraction
+import math
 
 import numpy as np
 import sympy as sp
 
+from tensym.errors import TensymError
+from tensym.exact.fields import field_of, kron_times, rref_field
 from tensym.exact.linalg import QuadNumber, rref_integer, rref_sparse
 from tensym.tensors.kernels import (
     integer_generator,
+    _rep_array,
     lie_action,
-    lie_action_exact,
     monomial_action,
     monomial_form,
     quadratic_action,
@@ -174,8 +177,10 @@ def _integer_lie(group):
 def _rational_rows(spec, group, f, quads, roots, ratio, zero):
     """Integer constraint rows on the union-find classes (rational invariant subspace).
 
-    Every value is a dyadic rational below 2**53 in size, so the float64
-    products are exact; this is checked before the rows are rounded.
+    float64 is used only when every product and partial sum is a dyadic
+    rational below 2**52 in size, which the a-priori bound
+    ``max|block| * max|P| * n * 2**20 < 2**52`` guarantees (checked first; past
+    it the caller takes the exact field path).
     """
     orb = spec.orbits
     n = len(orb.reps)
@@ -189,12 +194,17 @@ def _rational_rows(spec, group, f, quads, roots, ratio, zero):
     for q, par in quads:
         den = q[1]
         A, B = quadratic_action(orb, q)
+        if A.dtype == object:
+            raise ArithmeticError("Kronecker products past int64; use the field path")
         scale = float(den) ** spec.rank
         blocks.append((par * A.astype(np.float64) - scale * np.eye(n)) * F)
         if q[0] != 1:
             blocks.append(par * B.astype(np.float64) * F)
     if not blocks:
         return []
+    big = max(float(np.abs(b).max(initial=0)) for b in blocks) * float(np.abs(P).max(initial=0)) * n * _DYADIC
+    if not big < 2.0**52:
+        raise ArithmeticError("constraint rows too large for exact float64; use the field path")
     C = np.vstack(blocks) @ P * _DYADIC
     R = np.rint(C)
     if not np.array_equal(R, C) or np.abs(R).max(initial=0) >= 2.0**52:
@@ -238,34 +248,6 @@ def _field_rows(spec, group, f, quads, d, roots, ratio, zero):
             nz = set(np.nonzero(A[i])[0]) | set(np.nonzero(B[i])[0]) | {i}
             rows.append({int(j): QuadNumber(Fraction(int(A[i, j]) * par - (scale if i == j else 0), scale) * f[j],
                                             Fraction(int(B[i, j]) * par, scale) * f[j], d) for j in nz})
-    return [_to_classes(r, roots, ratio, zero) for r in rows]
-
-
-def _general_rows(spec, group, f, quads, general, roots, ratio, zero):
-    """Constraint rows with sympy entries (any algebraic field; slow path)."""
-    orb = spec.orbits
-    n = len(orb.reps)
-    rows = []
-    for L in group.lie_generators:
-        N = lie_action_exact(orb, L)
-        for i in range(n):
-            row = {j: sp.nsimplify(N[i, j]) * _q(f[j]) for j in range(n) if N[i, j] != 0}
-            if row:
-                rows.append(row)
-    mats = [(sympy_action(orb, g.matrix), par) for g, par in general if g is not None]
-    for q, par in quads:
-        A, B = quadratic_action(orb, q)
-        scale = sp.Integer(q[1]) ** spec.rank
-        mats.append((sp.Matrix(n, n, lambda i, j: (int(A[i, j]) + int(B[i, j]) * sp.sqrt(q[0])) / scale), par))
-    for M, par in mats:
-        for i in range(n):
-            row = {}
-            for j in range(n):
-                v = sp.nsimplify(M[i, j] * par - (1 if i == j else 0))
-                if v != 0:
-                    row[j] = v * _q(f[j])
-            if row:
-                rows.append(row)
     return [_to_classes(r, roots, ratio, zero) for r in rows]
 
 
@@ -326,37 +308,40 @@ def _rescale_proportional(live, coeffs, purity, keys, preferred):
 def _standard_frame(group):
     """(standard group, Q) when ``group`` is a recognised re-orientation Q G_std Q^T, else None.
 
-    Magnetic groups are left to the direct path (the catalog holds their
-    unprimed parents).  For finite groups Q is verified on every standard
-    generator (numerically, to 1e-9 absolute).
+    The standard group is the catalog setting named by the group's
+    ``setting_symbol`` (ordinary or magnetic) or the continuous group of its
+    symbol.  Q is verified on every standard generator: Q g Q^T (numerically, to
+    1e-8 absolute) with the same time-reversal flag must be an operation of the
+    group.
     """
     names = getattr(group, "names", None)
     Q = getattr(names, "rotation", None)
-    if Q is None or any(g.time_reversal for g in group.generators):
+    if Q is None:
         return None
+    if getattr(group, "is_continuous", False):
+        from tensym.groups.continuous import continuous_group
+
+        try:
+            return continuous_group(names.hm), sp.ImmutableMatrix(Q)
+        except TensymError:  # a continuous group without a catalog name: direct path
+            return None
+    sym = getattr(names, "setting_symbol", "")
+    if not sym:
+        return None
+    from tensym.groups.symbols import point_group
+
     try:
-        if getattr(group, "is_continuous", False):
-            from tensym.groups.continuous import continuous_group
-
-            std = continuous_group(names.hm)
-        else:
-            from tensym.groups.catalog import catalog_group
-
-            sym = getattr(names, "setting_symbol", "")
-            if not sym:
-                return None
-            std = catalog_group(sym)
-    except Exception:  # an unnamed or non-catalog group: use the direct path
+        std = point_group(sym)
+    except TensymError:  # a symbol outside the catalog: direct path
         return None
-    if not getattr(group, "is_continuous", False):
-        q = np.array([[float(x) for x in row] for row in sp.Matrix(Q).tolist()])
-        keys = set(group.operation_keys()) if hasattr(group, "operation_keys") else {op.key for op in group.operations}
-        for g in std.generators:
-            m = q @ g.numeric @ q.T
-            key = tuple(int(v) for v in np.rint(m.ravel() * 1e8)) + (int(g.time_reversal),)
-            if key not in keys:
-                return None
-    return std, sp.Matrix(Q)
+    q = np.array([[float(x) for x in row] for row in sp.Matrix(Q).tolist()])
+    keys = set(group.operation_keys()) if hasattr(group, "operation_keys") else {op.key for op in group.operations}
+    for g in std.generators:
+        m = q @ g.numeric @ q.T
+        key = tuple(int(v) for v in np.rint(m.ravel() * 1e8)) + (int(g.time_reversal),)
+        if key not in keys:
+            return None
+    return std, sp.ImmutableMatrix(Q)
 
 
 def _needs_general(group):
@@ -372,17 +357,31 @@ def _needs_general(group):
     return len(fields) > 1 or any(integer_generator(L) is None for L in group.lie_generators)
 
 
-def _radical_zero(x):
-    return sp.expand(sp.radsimp(sp.expand(x))) == 0
+def _aggregation(orb):
+    """int64 (3**rank, n): column o holds the signs of orbit o's members (the orbit basis vector E_o)."""
+    S = np.zeros((3**orb.rank, len(orb.reps)), dtype=np.int64)
+    flats = np.nonzero(orb.orbit_of >= 0)[0]
+    S[flats, orb.orbit_of[flats]] = orb.sign_of[flats]
+    return S
+
+
+def _integer_scale(values):
+    """(ints, den) with values[i] = ints[i] / den for a list of Fractions."""
+    den = 1
+    for v in values:
+        den = math.lcm(den, v.denominator)
+    return [int(v * den) for v in values], den
 
 
 def _solve_rotated(spec, std, Q, f, keys, purity, preferred):
     """Solve in the standard setting, rotate the exact basis by Q, and re-pick the constants.
 
-    The invariant subspace in the given frame is Q applied to the standard
-    one.  Its basis (in Voigt variables) is reduced to row echelon form with
-    the columns in priority order, so the pivots are the first independent
-    components - the same constants the direct reduction would keep.
+    The invariant subspace in the given frame is Q applied to the standard one.
+    The rotated basis is computed over the number field of Q's entries by
+    modular Kronecker products (:func:`tensym.exact.fields.kron_times`), then
+    reduced to row echelon form with the columns in priority order, so the
+    pivots are the first independent components - the same rule as the direct
+    reduction.  Exact for any exact Q; no fixed-width integer can overflow.
     """
     orb = spec.orbits
     n = len(orb.reps)
@@ -390,12 +389,59 @@ def _solve_rotated(spec, std, Q, f, keys, purity, preferred):
     k = len(base.free)
     if k == 0:
         return base
+    entries = [sp.sympify(x) for x in sp.Matrix(Q)]
+    basis = [[sp.Integer(0)] * k for _ in range(n)]
+    for o, terms in enumerate(base.coeffs):
+        for i, c in terms:
+            basis[o][i] = sp.sympify(c) * _q(f[o])
+    flat_b = [x for row in basis for x in row]
+    if not all(x.is_Rational for x in flat_b):  # standard solution over a field (not in the catalog)
+        return _solve_rotated_sympy(spec, base, Q, f, keys, purity, preferred)
+    field, _, coords = field_of(entries)
+    N = field.degree
+    A = np.empty((N, 3, 3), dtype=object)
+    for idx, v in enumerate(coords):
+        A[:, idx // 3, idx % 3] = v
+    ints, _ = _integer_scale([Fraction(int(x.p), int(x.q)) for x in flat_b])
+    B = np.array(ints, dtype=object).reshape(n, k)
+    right = _aggregation(orb).astype(object).dot(B)  # (3**rank, k): the full basis tensors
+    rotated = kron_times(_rep_array(orb), A, field, right)  # (N, n, k) tensor components at representatives
+    # Voigt variables v_o = t_o / f_o, scaled to integers
+    scale, _ = _integer_scale([1 / x for x in f])
+    scale = np.array(scale, dtype=object)
+    rows = [rotated[:, :, i] * scale[None, :] for i in range(k)]
+    order = sorted(range(n), key=lambda o: keys[o])
+    reduced = rref_field(field, rows, order)
+    if len(reduced) != k:  # pragma: no cover - Q is invertible, so the rank is kept
+        raise ArithmeticError("rotated basis lost rank")
+    reduced.sort(key=lambda t: keys[t[0]])
+    free = [col for col, _, _ in reduced]
+    coeffs = []
+    for o in range(n):
+        terms = []
+        for i, (col, row, g) in enumerate(reduced):
+            v = row[:, o]
+            if any(v):
+                terms.append((i, field.to_sympy(v, g)))
+        coeffs.append(tuple(terms))
+    live, coeffs = _rescale_proportional(free, coeffs, purity, keys, set(preferred))
+    return Solution(free=tuple(live), coeffs=tuple(coeffs))
+
+
+def _radical_zero(x):
+    return sp.expand(sp.radsimp(sp.expand(x))) == 0
+
+
+def _solve_rotated_sympy(spec, base, Q, f, keys, purity, preferred):
+    """The rotated route with sympy arithmetic, for a standard basis that is not rational."""
+    orb = spec.orbits
+    n = len(orb.reps)
+    k = len(base.free)
     B = sp.zeros(n, k)
     for o, terms in enumerate(base.coeffs):
         for i, c in terms:
             B[o, i] = c * _q(f[o])
-    par = 1  # proper rotation: no axial sign
-    rotated = (sympy_action(orb, Q) * B * par).applyfunc(lambda x: sp.radsimp(sp.expand(x)))
+    rotated = (sympy_action(orb, Q) * B).applyfunc(lambda x: sp.radsimp(sp.expand(x)))
     order = sorted(range(n), key=lambda o: keys[o])
     A = sp.Matrix(k, n, lambda i, j: rotated[order[j], i] / _q(f[order[j]]))
     R, piv = A.rref(iszerofunc=_radical_zero, simplify=lambda x: sp.radsimp(sp.expand(x)))
@@ -410,9 +456,96 @@ def _solve_rotated(spec, std, Q, f, keys, purity, preferred):
         for p in free:
             c = sp.radsimp(sp.expand(R[row_of[p], pos_in[o]]))
             if c != 0:
-                terms.append((index[p], sp.nsimplify(c) if c.is_Rational else c))
+                terms.append((index[p], c))
         coeffs.append(tuple(terms))
     live, coeffs = _rescale_proportional(free, coeffs, purity, keys, set(preferred))
+    return Solution(free=tuple(live), coeffs=tuple(coeffs))
+
+
+def _general_rows(spec, group, f, dense, roots, ratio, zero):
+    """Constraint rows over the number field of the dense generators' entries.
+
+    Returns (field, rows, classes): rows are object arrays (N, m) over the
+    union-find classes ``classes``.  The Kronecker products run modulo primes
+    (exact, see :func:`tensym.exact.fields.kron_times`).
+    """
+    orb = spec.orbits
+    n = len(orb.reps)
+    classes = sorted({r for r in roots if r not in zero})
+    col = {r: j for j, r in enumerate(classes)}
+    mats = [sp.Matrix(g.matrix) for g, _ in dense]
+    lies = [sp.Matrix(L) for L in group.lie_generators]
+    entries = [sp.sympify(x) for m in mats + lies for x in m]
+    field, den, coords = field_of(entries or [sp.Integer(1)])
+    N = field.degree
+    # t_o = f_o * ratio_o * v_class(o), scaled to integers
+    w, _ = _integer_scale([f[o] * ratio[o] for o in range(n)])
+    P = np.zeros((n, len(classes)), dtype=object)
+    for o in range(n):
+        if roots[o] not in zero:
+            P[o, col[roots[o]]] = w[o]
+    right = _aggregation(orb).astype(object).dot(P)
+    reps = _rep_array(orb)
+    rows = []
+    for gi, (g, par) in enumerate(dense):
+        A = np.empty((N, 3, 3), dtype=object)
+        for idx in range(9):
+            A[:, idx // 3, idx % 3] = coords[9 * gi + idx]
+        image = kron_times(reps, A, field, right) * par  # (N, n, m), times den**rank
+        image[0] = image[0] - den**spec.rank * P
+        rows.extend(image[:, i, :] for i in range(n))
+    base = 9 * len(dense)
+    for li in range(len(lies)):
+        L = [coords[base + 9 * li + idx] for idx in range(9)]
+        rows.extend(_lie_field_rows(orb, L, N, P))
+    return field, rows, classes
+
+
+def _lie_field_rows(orb, L, N, P):
+    """Rows of the Lie generator's action (dL.T = 0) over the field, on the classes."""
+    n = len(orb.reps)
+    out = np.zeros((N, n, n), dtype=object)
+    for o2, rep in enumerate(orb.reps):
+        for kpos, ik in enumerate(rep):
+            for c in range(3):
+                lv = L[3 * ik + c]
+                if not any(lv):
+                    continue
+                idx = rep[:kpos] + (c,) + rep[kpos + 1:]
+                o, s = orb.locate(idx)
+                if o >= 0:
+                    out[:, o2, o] = out[:, o2, o] + lv * s
+    rows = [np.stack([out[c].dot(P)[i] for c in range(N)]) for i in range(n)]
+    return rows
+
+
+def _solve_field(spec, group, f, dense, roots, ratio, zero, keys, purity, preferred):
+    """Direct reduction over the number field of the generators (groups not in the catalog)."""
+    field, rows, classes = _general_rows(spec, group, f, dense, roots, ratio, zero)
+    order = sorted(range(len(classes)), key=lambda j: keys[classes[j]], reverse=True)
+    reduced = rref_field(field, rows, order)
+    pivots = {classes[col]: (row, g) for col, row, g in reduced}
+    live = sorted((r for r in classes if r not in pivots), key=lambda c: keys[c])
+    pos = {r: i for i, r in enumerate(live)}
+    col_of = {r: j for j, r in enumerate(classes)}
+    coeffs = []
+    for o in range(len(spec.orbits.reps)):
+        r = roots[o]
+        if r in zero:
+            coeffs.append(())
+            continue
+        q = _q(ratio[o])
+        if r in pivots:
+            row, g = pivots[r]
+            terms = []
+            for c in live:
+                v = row[:, col_of[c]]
+                if any(v):
+                    terms.append((pos[c], sp.expand(-q * field.to_sympy(v, g))))
+            coeffs.append(tuple(terms))
+        else:
+            coeffs.append(((pos[r], q),))
+    live, coeffs = _rescale_proportional(live, coeffs, purity, keys, set(preferred))
     return Solution(free=tuple(live), coeffs=tuple(coeffs))
 
 
@@ -448,10 +581,9 @@ def solve_invariants(spec, group, factors=None, priority=None, purity=None, pref
     ff = [float(x) for x in f]
     if purity is None:
         purity = [len(set(k)) for k in keys]
-    if _needs_general(group):
-        frame = _standard_frame(group)
-        if frame is not None:
-            return _solve_rotated(spec, frame[0], frame[1], f, keys, purity, preferred)
+    frame = _standard_frame(group)
+    if frame is not None:
+        return _solve_rotated(spec, frame[0], frame[1], f, keys, purity, preferred)
     uf = _UnionFind(n, lambda o: keys[o])
     dense = []
     for g in group.generators:
@@ -481,11 +613,9 @@ def solve_invariants(spec, group, factors=None, priority=None, purity=None, pref
         if q[0] != 1:
             field_d = q[0]
         quads.append((q, par))
-    if any(integer_generator(L) is None for L in group.lie_generators):
-        general = general or [(None, None)]
-    if general:
-        work = _general_rows(spec, group, f, quads, general, roots, ratio, zero)
-    elif field_d != 1 and not _galois_stable(group, field_d):
+    if general or any(integer_generator(L) is None for L in group.lie_generators):
+        return _solve_field(spec, group, f, dense, roots, ratio, zero, keys, purity, preferred)
+    if field_d != 1 and not _galois_stable(group, field_d):
         work = _field_rows(spec, group, f, quads, field_d, roots, ratio, zero)
     else:
         try:
