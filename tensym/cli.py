@@ -2,8 +2,11 @@
 
 Subcommands print tensym results in the format asked for with ``--format``
 (``text``, ``latex``, ``markdown``, ``json``; ``--standalone`` makes the LaTeX a
-complete document).  Bad input ends with exit status 2 and one line on
-standard error that says what was wrong and what is accepted.
+complete document).  ``--output FILE`` (``-o``) writes to a file instead of
+standard output: the file is written whole or not at all (a temporary file in
+the same folder, renamed when complete), and an existing file is replaced only
+with ``--force``.  Bad input ends with exit status 2 and one line on standard
+error that says what was wrong and what is accepted.
 
 Run ``tensym --help`` or ``tensym COMMAND --help`` for the details and examples.
 
@@ -23,6 +26,7 @@ point group 6mm (C6v), setting: 6-fold along z, mirror normals x and y (and thei
 """
 
 import argparse
+import os
 import re
 import sys
 
@@ -98,6 +102,10 @@ def _add_format(p, *, latex=True):
     if latex:
         p.add_argument("--standalone", action="store_true",
                        help="with --format latex: print a complete LaTeX document instead of math-mode content")
+    p.add_argument("--output", "-o", metavar="FILE",
+                   help="write to FILE instead of standard output (never a partial file; an existing FILE "
+                        "needs --force)")
+    p.add_argument("--force", action="store_true", help="with --output: replace FILE if it exists")
 
 
 # --- rendering ---------------------------------------------------------------------
@@ -488,6 +496,18 @@ def _cmd_identify(args):
     return _emit([tensym.find_symmetry(data, tol=args.tol)], args)
 
 
+def _cut(text, n=40):
+    """``text`` cut to ``n`` characters and '...' (user input echoed in messages)."""
+    text = str(text)
+    return text if len(text) <= n else text[:n] + "..."
+
+
+def _cut_path(path, n=40):
+    """A file name for messages: long paths keep their last ``n`` characters."""
+    path = str(path)
+    return path if len(path) <= n else "..." + path[-n:]
+
+
 _DASH_DIGIT = re.compile(r"^-[0-9]")
 
 
@@ -542,6 +562,15 @@ def main(argv=None):
         parser.print_help()
         return 0
     prog = f"tensym {args.command}"
+    out_path = getattr(args, "output", None)
+    if out_path == "-":
+        out_path = None
+    if getattr(args, "force", False) and out_path is None:
+        print(f"{prog}: --force goes with --output FILE (see '{prog} --help')", file=sys.stderr)
+        return 2
+    if out_path is not None and not args.force and os.path.lexists(out_path):
+        print(f"{prog}: {_cut_path(out_path)} exists already; add --force to replace it", file=sys.stderr)
+        return 2
     try:
         text = args.handler(args)
     except TensymError as exc:
@@ -554,6 +583,18 @@ def main(argv=None):
         print(f"{prog}: {exc.strerror or exc}: {exc.filename}" if exc.filename else f"{prog}: {exc}",
               file=sys.stderr)
         return 2
+    if out_path is not None:
+        from tensym.data.io import write_text_atomic
+
+        try:
+            write_text_atomic(out_path, text + "\n", overwrite=args.force)
+        except TensymError:  # the file appeared while the command ran
+            print(f"{prog}: {_cut_path(out_path)} exists already; add --force to replace it", file=sys.stderr)
+            return 2
+        except OSError as exc:
+            print(f"{prog}: cannot write {_cut_path(out_path)}: {exc.strerror or exc}", file=sys.stderr)
+            return 2
+        return 0
     try:
         sys.stdout.write(text + "\n")
         sys.stdout.flush()

@@ -1,6 +1,7 @@
 """The tensym command line: subcommands, formats, and one-line errors with exit status 2."""
 
 import json
+import os
 import subprocess
 import sys
 
@@ -338,3 +339,51 @@ def test_form_in_a_magnetic_group(capsys):
     assert out.splitlines()[1].startswith("magnetic point group -3'm'")
     # Dzyaloshinskii 1959: diagonal, alpha11 = alpha22, alpha33
     assert "2 independent: alpha11, alpha33" in out and "  alpha22 = alpha11" in out
+
+
+# --- output files -------------------------------------------------------------------------------
+def test_output_option_writes_the_file_and_prints_nothing(capsys, tmp_path):
+    target = tmp_path / "d.md"
+    code, out, err = run(capsys, "form", "6mm", "piezoelectric_d", "--format", "markdown", "-o", str(target))
+    assert code == 0 and out == "" and err == ""
+    # Nye 1985, Table 7 (class 6mm): d15, d31, d33
+    assert "d_{15}" in target.read_text() or "d15" in target.read_text()
+    assert sorted(os.listdir(tmp_path)) == ["d.md"]
+
+
+def test_output_to_an_existing_file_is_refused_without_force(capsys, tmp_path):
+    target = tmp_path / "s32.tex"
+    target.write_text("my notes\n")
+    code, out, err = run(capsys, "form", "32", "elastic_compliance", "--format", "latex", "-o", str(target))
+    assert_one_line_error(code, out, err, "s32.tex exists already; add --force to replace it")
+    assert target.read_text() == "my notes\n"
+    code, out, err = run(capsys, "form", "32", "elastic_compliance", "--format", "latex", "-o", str(target),
+                         "--force")
+    assert code == 0 and out == "" and target.read_text() != "my notes\n"
+    assert sorted(os.listdir(tmp_path)) == ["s32.tex"]
+
+
+@pytest.mark.parametrize("command", ["tour", "groups", "properties", "form", "characters", "split", "correlate",
+                                     "check", "frame", "identify"])
+def test_every_command_refuses_to_overwrite_its_output(capsys, tmp_path, command):
+    target = tmp_path / "kept.txt"
+    target.write_text("kept\n")
+    data = _cubic(tmp_path, turned=False)
+    argv = {"tour": [], "groups": [], "properties": [], "form": ["6mm", "pyroelectric"],
+            "characters": ["4mm"], "split": ["m-3m", "elastic_stiffness"], "correlate": ["m-3m", "4/mmm"],
+            "check": [data, "m-3m"], "frame": [data, "m-3m"], "identify": [data]}[command]
+    code, out, err = run(capsys, command, *argv, "--output", str(target))
+    assert_one_line_error(code, out, err, "kept.txt exists already")
+    assert target.read_text() == "kept\n"
+
+
+def test_force_without_output_and_an_unwritable_output(capsys, tmp_path):
+    assert_one_line_error(*run(capsys, "form", "6mm", "pyroelectric", "--force"), "--force goes with --output")
+    missing = tmp_path / "no" / "x.txt"
+    assert_one_line_error(*run(capsys, "form", "6mm", "pyroelectric", "-o", str(missing)),
+                          "cannot write", "No such file or directory")
+
+
+def test_output_dash_is_standard_output(capsys):
+    code, out, _ = run(capsys, "form", "6mm", "pyroelectric", "-o", "-")
+    assert code == 0 and "1 independent: p3" in out

@@ -64,6 +64,7 @@ Examples
 [[2.0, 0.0, 0.0], [0.0, 2.0, 0.0], [0.0, 0.0, 3.0]]
 """
 
+import errno
 import json
 import os
 import re
@@ -75,7 +76,7 @@ from tensym.data.model import layout as _layout
 from tensym.errors import DataError, InvalidOptionError
 from tensym.tensors.form import as_property
 
-__all__ = ["read_tensor", "write_tensor", "data_record", "FORMAT_TAG", "FILE_FORMATS"]
+__all__ = ["read_tensor", "write_tensor", "write_text_atomic", "data_record", "FORMAT_TAG", "FILE_FORMATS"]
 
 #: The value of the "format" key of tensym's JSON data files.
 FORMAT_TAG = "tensym-data/1"
@@ -84,6 +85,12 @@ FILE_FORMATS = ("auto", "csv", "json")
 _SPLIT = re.compile(r"[,;\t ]+")
 _META_KEYS = ("property", "units", "source")
 _UNC_WORDS = ("uncertainty", "uncertainties", "sigma", "standard uncertainty", "standard uncertainties")
+
+
+def _cut(text, n=40):
+    """``text`` cut to ``n`` characters and '...' (for echoing user input in messages)."""
+    text = str(text)
+    return text if len(text) <= n else text[:n] + "..."
 
 
 def _fmt(v):
@@ -105,7 +112,7 @@ def data_record(data):
     return rec
 
 
-def write_tensor(data, path, *, format="auto"):
+def write_tensor(data, path, *, format="auto", overwrite=True):
     """Write a TensorData to a CSV or JSON file in tensym's formats (see the module notes).
 
     Parameters
@@ -114,13 +121,24 @@ def write_tensor(data, path, *, format="auto"):
     path : str or os.PathLike
     format : {'auto', 'csv', 'json'}
         'auto' follows the extension ('.json' is JSON, anything else CSV).
+    overwrite : bool, keyword-only
+        Replace an existing file (default True); with False an existing file is an error.
+
+    Notes
+    -----
+    The write is atomic (see :func:`write_text_atomic`): a failed write (disk
+    full, no permission) leaves the old file, if any, untouched and no partial
+    or temporary file behind.
 
     Raises
     ------
     DataError
-        If ``data`` is not a TensorData, or a full covariance is to go to CSV.
+        If ``data`` is not a TensorData, a full covariance is to go to CSV, or
+        the file exists and ``overwrite`` is False.
     InvalidOptionError
-        For a format outside the set.
+        For a format outside the set, or an ``overwrite`` that is not a bool.
+    OSError
+        If the file cannot be written (its ``filename`` is ``path``).
 
     Examples
     --------
@@ -139,8 +157,128 @@ def write_tensor(data, path, *, format="auto"):
         text = json.dumps(data_record(data), indent=2) + "\n"
     else:
         text = _csv_text(data)
-    with open(path, "w", encoding="utf-8") as fh:
-        fh.write(text)
+    write_text_atomic(path, text, overwrite=overwrite)
+
+
+def write_text_atomic(path, text, *, overwrite=True):
+    """Write ``text`` (UTF-8) to ``path`` so that the file is either the old one or the whole new one.
+
+    The text goes to a temporary file in the same folder (``.NAME.XXXXXXXX.tmp``),
+    which is flushed and synced to disk, then renamed onto ``path`` in one step
+    (``os.replace``; with ``overwrite=False``, ``os.link``, which fails when
+    ``path`` exists).  A failure at any point (disk full, permissions, an
+    interrupted write) removes the temporary file and leaves ``path`` as it was.
+    A replaced file keeps its permission bits; a new one gets the usual ones
+    (0666 less the umask).
+
+    Parameters
+    ----------
+    path : str or os.PathLike
+    text : str
+    overwrite : bool, keyword-only
+        Replace an existing file (default); with False an existing file is an error.
+
+    Raises
+    ------
+    DataError
+        With ``overwrite=False`` when ``path`` exists (the message says to remove
+        it or allow overwriting).
+    OSError
+        When the folder cannot be written (its ``filename`` is ``path``, not the
+        temporary file).
+
+    Examples
+    --------
+    >>> import os, tempfile
+    >>> path = os.path.join(tempfile.mkdtemp(), "note.txt")
+    >>> write_text_atomic(path, "first" + chr(10))
+    >>> write_text_atomic(path, "second" + chr(10), overwrite=False)
+    Traceback (most recent call last):
+    ...
+    tensym.errors.DataError: note.txt exists already; remove it, or allow overwriting (overwrite=True, or --force on the command line)
+    >>> open(path).read().strip(), sorted(os.listdir(os.path.dirname(path)))
+    ('first', ['note.txt'])
+    """
+    if not isinstance(overwrite, bool):
+        raise InvalidOptionError(f"overwrite must be True or False, got {_cut(repr(overwrite))}")
+    target = os.fspath(path)
+    folder = os.path.dirname(os.path.abspath(target))
+    base = os.path.basename(target)
+    if not overwrite and os.path.lexists(target):
+        raise DataError(_exists_message(target))
+    data = text.encode("utf-8")
+    tmp = None
+    try:
+        fd, tmp = _open_temp(folder, base)
+        with os.fdopen(fd, "wb") as fh:
+            fh.write(data)
+            fh.flush()
+            os.fsync(fh.fileno())
+        if os.path.exists(target):
+            try:
+                os.chmod(tmp, os.stat(target).st_mode & 0o7777)
+            except OSError:
+                pass
+        if overwrite:
+            os.replace(tmp, target)
+        else:
+            try:
+                os.link(tmp, target)  # fails if the target appeared meanwhile: no file is ever clobbered
+            except FileExistsError:
+                raise DataError(_exists_message(target)) from None
+            except OSError:  # no hard links on this file system: check, then rename
+                if os.path.lexists(target):
+                    raise DataError(_exists_message(target)) from None
+                os.replace(tmp, target)
+            else:
+                os.unlink(tmp)
+        tmp = None
+        _sync_folder(folder)
+    except OSError as exc:
+        raise _retarget(exc, target) from exc
+    finally:
+        if tmp is not None:
+            try:
+                os.unlink(tmp)
+            except OSError:
+                pass
+
+
+def _exists_message(target):
+    return (f"{_cut(os.path.basename(target))} exists already; remove it, or allow overwriting "
+            "(overwrite=True, or --force on the command line)")
+
+
+def _open_temp(folder, base):
+    """A new file ``.BASE.XXXXXXXX.tmp`` in ``folder``, created exclusively with mode 0666 less the umask."""
+    for _ in range(100):
+        name = os.path.join(folder, f".{base[:80]}.{os.urandom(4).hex()}.tmp")
+        try:
+            return os.open(name, os.O_WRONLY | os.O_CREAT | os.O_EXCL | getattr(os, "O_BINARY", 0), 0o666), name
+        except FileExistsError:
+            continue
+    raise FileExistsError(errno.EEXIST, "no free temporary name", os.path.join(folder, base))  # pragma: no cover
+
+
+def _sync_folder(folder):
+    """Make the rename durable where the system allows it (best effort)."""
+    try:
+        fd = os.open(folder, os.O_RDONLY)
+    except OSError:
+        return
+    try:
+        os.fsync(fd)
+    except OSError:
+        pass
+    finally:
+        os.close(fd)
+
+
+def _retarget(exc, target):
+    """The same OSError, naming the target file instead of the temporary one."""
+    if exc.errno is None:
+        return exc
+    return type(exc)(exc.errno, exc.strerror, target)
 
 
 def _csv_text(data):
