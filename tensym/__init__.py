@@ -67,6 +67,7 @@ __all__ += ["CharacterTable", "CorrelationTable", "Decomposition", "Irrep", "Spa
 # --- tensors ------------------------------------------------------------------
 from tensym.tensors import (
     Property,
+    RotatedForm,
     TensorForm,
     TensorSpec,
     from_voigt,
@@ -76,7 +77,7 @@ from tensym.tensors import (
     to_voigt,
 )
 
-__all__ += ["Property", "TensorForm", "TensorSpec", "from_voigt", "get_property", "property_names",
+__all__ += ["Property", "RotatedForm", "TensorForm", "TensorSpec", "from_voigt", "get_property", "property_names",
             "tensor_form", "to_voigt"]
 # --- data -----------------------------------------------------------------------
 from tensym.data import (

@@ -9,7 +9,7 @@ Examples
 
 from tensym.tensors.catalog import Property, get_property, property_names, register_property
 from tensym.tensors import magnetic_catalog  # noqa: F401  (registers the magnetic properties)
-from tensym.tensors.form import TensorForm, as_property, tensor_form
+from tensym.tensors.form import RotatedForm, TensorForm, as_property, tensor_form
 from tensym.tensors.spec import MAX_RANK, TensorSpec
 from tensym.tensors.rotate import rotate_tensor
 from tensym.tensors.voigt import from_voigt, to_voigt, voigt_shape
@@ -18,6 +18,7 @@ __all__ = [
     "MAX_RANK",
     "Property",
     "TensorForm",
+    "RotatedForm",
     "TensorSpec",
     "as_property",
     "from_voigt",

@@ -22,7 +22,7 @@ from tensym.tensors.catalog import VOIGT_PAIRS, Property, get_property, property
 from tensym.tensors.solver import Solution, solve_invariants
 from tensym.tensors.spec import TensorSpec
 
-__all__ = ["TensorForm", "tensor_form", "as_property", "group_key"]
+__all__ = ["TensorForm", "RotatedForm", "tensor_form", "as_property", "group_key"]
 
 
 def as_property(what, *, symbol=None):
@@ -277,21 +277,53 @@ class TensorForm:
         """The real sympy Symbol named by property letter + label digits (e.g. 'c66')."""
         return sp.Symbol(self.property.symbol + _label_text(label), real=True)
 
+    def _component_labels(self):
+        """(orbit, label) for every distinct Voigt component, in label order.
+
+        Two Voigt labels of one orbit are one component when one is a
+        permutation of the other (c12 and c21 of a symmetric matrix, C123 and
+        C132); otherwise both are listed (d15 and d31 under Kleinman symmetry).
+        """
+        if "components" not in self._cache:
+            orb = self.spec.orbits
+            shape = (3,) * self.spec.rank
+            seen = {}
+            for o, mem in enumerate(orb.members):
+                for flat in mem:
+                    idx = tuple(int(x) for x in np.unravel_index(int(flat), shape)) if self.spec.rank else ()
+                    lab = _voigt_label(idx, self.property.voigt_groups)
+                    key = (o, tuple(sorted(lab)))
+                    if key not in seen or lab < seen[key]:
+                        seen[key] = lab
+            self._cache["components"] = tuple(sorted(((o, lab) for (o, _), lab in seen.items()),
+                                                     key=lambda t: t[1]))
+        return self._cache["components"]
+
     @property
     def relations(self):
         """tuple of sympy Eq, one for every component that is tied or vanishes.
 
-        Each left side is the symbol of the component's Voigt label (e.g. c66),
-        each right side its value in the independent constants.
+        Each left side is the symbol of a Voigt component (e.g. c66), each right
+        side its value in the independent constants.  Every distinct Voigt
+        component appears, also the ones that share an orbit with an
+        independent constant (d31 = d15 for Kleinman-symmetric d in 3m).
+
+        Examples
+        --------
+        >>> import tensym
+        >>> f = tensym.tensor_form("second_harmonic_kleinman", "3m")
+        >>> [str(r) for r in f.relations if r.rhs != 0]
+        ['Eq(d16, -d22)', 'Eq(d21, -d22)', 'Eq(d24, d15)', 'Eq(d31, d15)', 'Eq(d32, d15)']
         """
         if "relations" not in self._cache:
             vals = self._orbit_values()
-            free = set(self._free)
+            free = {self.symbols[i] for i in range(self.n_independent)}
             rels = []
-            for o in sorted(range(len(vals)), key=lambda o: self._labels[o]):
-                if o in free:
+            for o, lab in self._component_labels():
+                sym = self.label_symbol(lab)
+                if sym in free:
                     continue
-                rels.append(sp.Eq(self.label_symbol(self._labels[o]), vals[o], evaluate=False))
+                rels.append(sp.Eq(sym, self._voigt_entry(lab), evaluate=False))
             self._cache["relations"] = tuple(rels)
         return self._cache["relations"]
 
@@ -299,8 +331,47 @@ class TensorForm:
     def zero_components(self):
         """Labels (strings, e.g. 'c14') of the components the symmetry forces to vanish."""
         vals = self._orbit_values()
-        return tuple(self.property.symbol + _label_text(self._labels[o])
-                     for o in sorted(range(len(vals)), key=lambda o: self._labels[o]) if vals[o] == 0)
+        return tuple(self.property.symbol + _label_text(lab) for o, lab in self._component_labels() if vals[o] == 0)
+
+    def rotated(self, rotation):
+        """The form in rotated axes, still in this crystal's own constants.
+
+        Convention: ``rotation`` R holds the new axes as its rows, written in
+        the crystal axes (R[i, j] = cos(new axis i, crystal axis j), the
+        direction cosines a_ij of IEEE Std 176-1987), so that the components
+        in the new axes are T'_{i..} = R_{ia} ... T_{a..} (times det R for an
+        axial tensor).  R may hold symbols (a cut angle theta); it must be
+        orthogonal.
+
+        Parameters
+        ----------
+        rotation : 3x3 sympy Matrix, nested list or Operation
+
+        Returns
+        -------
+        RotatedForm
+
+        Raises
+        ------
+        InvalidOperationError
+            If R is not an exact orthogonal 3x3 matrix.
+
+        Examples
+        --------
+        >>> import sympy as sp, tensym
+        >>> t = sp.Symbol("theta", real=True)
+        >>> R = sp.Matrix([[1, 0, 0], [0, sp.cos(t), sp.sin(t)], [0, -sp.sin(t), sp.cos(t)]])
+        >>> c = tensym.tensor_form("elastic_stiffness", "32").rotated(R)
+        >>> sp.simplify(c.voigt[5, 5] - (c.form.voigt[5, 5] * sp.cos(t)**2 + c.form.voigt[3, 3] * sp.sin(t)**2
+        ...             + 2 * c.form.voigt[0, 3] * sp.sin(t) * sp.cos(t)))
+        0
+        """
+        from tensym.tensors.rotate import rotate_tensor, rotation_matrix_of
+        from tensym.tensors.voigt import to_voigt
+
+        R = rotation_matrix_of(rotation)
+        tensor = rotate_tensor(self.tensor, R, axial=bool(self.spec.axial))
+        return RotatedForm(form=self, rotation=R, tensor=tensor, voigt=to_voigt(tensor, self.property))
 
     # --- numeric views --------------------------------------------------------
     def _numeric_values(self, values):
@@ -395,6 +466,90 @@ class TensorForm:
         gname = getattr(self.group, "symbol", "") or "unnamed group"
         return (f"<TensorForm {self.property.name} in {gname}: {self.n_independent} independent "
                 f"({', '.join(map(str, self.symbols))})>")
+
+
+@dataclass(frozen=True)
+class RotatedForm:
+    """A reduced form written in rotated axes (``TensorForm.rotated``).
+
+    Attributes
+    ----------
+    form : TensorForm
+        The form in the crystal's own (standard or given) axes.
+    rotation : sympy.ImmutableMatrix
+        R: rows are the new axes in crystal coordinates; T' = R.T.R^T... on
+        every index (times det R for axial tensors).
+    tensor : sympy.ImmutableDenseNDimArray
+        The full tensor in the new axes, in the crystal's constants.
+    voigt : sympy.ImmutableMatrix or ImmutableDenseNDimArray
+        The same in Voigt notation with the property's factor convention.
+
+    Examples
+    --------
+    >>> import sympy as sp, tensym
+    >>> r = tensym.tensor_form("dielectric_permittivity", "4mm").rotated(sp.Matrix([[0, 0, 1], [0, 1, 0], [-1, 0, 0]]))
+    >>> r.voigt
+    Matrix([
+    [epsilon33,         0,         0],
+    [        0, epsilon11,         0],
+    [        0,         0, epsilon11]])
+    """
+
+    form: object
+    rotation: object
+    tensor: object
+    voigt: object
+
+    @property
+    def symbols(self):
+        """The crystal's independent constants (the same as ``form.symbols``)."""
+        return self.form.symbols
+
+    def evaluate(self, values, *, full=False, angles=None):
+        """Numeric tensor (float64) for given constants (and values of any angle symbols).
+
+        ``values`` as in :meth:`TensorForm.evaluate`; ``angles`` maps the
+        rotation's symbols to numbers (radians for trigonometric arguments).
+        """
+        x = self.form._numeric_values(values)
+        subs = {s: float(v) for s, v in zip(self.form.symbols, x)}
+        for k, v in (angles or {}).items():
+            subs[sp.Symbol(k, real=True) if isinstance(k, str) else k] = float(v)
+        target = self.tensor if full else self.voigt
+        arr = sp.Array(target).subs(subs) if not isinstance(target, sp.MatrixBase) else target.subs(subs)
+        try:
+            return np.array(sp.Array(arr).tolist(), dtype=np.float64)
+        except TypeError as exc:
+            free = sorted(str(s) for s in sp.Array(arr).free_symbols)
+            raise DataError(f"no value given for {', '.join(free)}; pass angles={{name: value}}") from exc
+
+    def latex(self, *, standalone=False):
+        """LaTeX of the Voigt matrix in the new axes (amsmath)."""
+        body = sp.latex(self.voigt) if isinstance(self.voigt, sp.MatrixBase) else sp.latex(sp.Array(self.voigt))
+        if not standalone:
+            return body
+        return ("\\documentclass{article}\n\\usepackage{amsmath}\n\\begin{document}\n\\[\n" + body
+                + "\n\\]\n\\end{document}\n")
+
+    def __str__(self):
+        head = (f"{self.form.property.name} in rotated axes (rows of R = new axes in crystal axes), "
+                f"constants {', '.join(map(str, self.symbols))}")
+        lines = [head]
+        letter = self.form.property.symbol
+        v = self.voigt
+        shape = v.shape
+        from itertools import product as _product
+
+        for idx in _product(*[range(d) for d in shape]):
+            if len(shape) == 2 and shape[0] == shape[1] and idx[1] < idx[0] and v[idx] == v[idx[::-1]]:
+                continue  # symmetric matrix: the upper triangle says it
+            val = v[idx]
+            if val != 0:
+                lines.append(f"  {letter}'{''.join(str(i + 1) for i in idx)} = {sp.sstr(val)}")
+        return "\n".join(lines)
+
+    def __repr__(self):
+        return f"<RotatedForm {self.form.property.name}: {self.form.n_independent} constants, R = {self.rotation.tolist()}>"
 
 
 def tensor_form(what, group, *, symbol=None, prefer=None):

@@ -74,10 +74,43 @@ def _maps(p):
     return out
 
 
-def to_voigt(tensor, what):
-    """Voigt array (float64) of a full Cartesian tensor, with the property's factors.
+def _is_symbolic(tensor):
+    import sympy as sp
 
-    Accepts a stack (..., 3, ..., 3); the leading axes are kept.
+    if isinstance(tensor, (sp.NDimArray, sp.MatrixBase)):
+        return True
+    arr = np.asarray(tensor, dtype=object) if not isinstance(tensor, np.ndarray) else tensor
+    return arr.dtype == object and any(isinstance(v, sp.Basic) and not v.is_number for v in arr.ravel())
+
+
+def _to_voigt_exact(tensor, p):
+    """sympy ImmutableMatrix (one or two Voigt groups) or ImmutableDenseNDimArray of an exact tensor."""
+    import sympy as sp
+
+    arr = sp.Array(tensor)
+    rank = p.spec.rank
+    if arr.shape != (3,) * rank:
+        raise DataError(f"{p.name} needs a tensor of shape {(3,) * rank}, got {arr.shape}")
+    shape = voigt_shape(p)
+    out = {}
+    for idx, v, fac in _maps(p):
+        if v not in out:
+            out[v] = sp.expand(arr[idx] * int(fac)) if rank else arr[()]
+    entries = [out[v] for v in product(*[range(d) for d in shape])]
+    if len(shape) == 1:
+        return sp.ImmutableMatrix(shape[0], 1, entries)
+    if len(shape) == 2:
+        return sp.ImmutableMatrix(shape[0], shape[1], entries)
+    return sp.ImmutableDenseNDimArray(entries, shape)
+
+
+def to_voigt(tensor, what):
+    """Voigt array of a full Cartesian tensor, with the property's factors.
+
+    Accepts a stack (..., 3, ..., 3) of numbers (float64 result; the leading
+    axes are kept), or one exact tensor with sympy entries (a sympy Array or
+    Matrix, or entries with symbols), which gives a sympy ImmutableMatrix
+    (an ImmutableDenseNDimArray for three or more Voigt groups).
 
     Raises
     ------
@@ -85,6 +118,8 @@ def to_voigt(tensor, what):
         For a wrong shape.
     """
     p = _prop(what)
+    if _is_symbolic(tensor):
+        return _to_voigt_exact(tensor, p)
     t = np.asarray(tensor, dtype=np.float64)
     rank = p.spec.rank
     if t.ndim < rank or t.shape[t.ndim - rank:] != (3,) * rank:
