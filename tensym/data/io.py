@@ -44,6 +44,29 @@ One object (keys in any order)::
 
 ``covariance`` lists the labels of its rows and columns, in any order; they
 must be every distinct component exactly once (see ``tensym.component_labels``).
+Numbers are JSON numbers: ``true``/``false``, ``null``, strings (``"2"``) and
+the non-standard ``NaN``/``Infinity`` are refused with their position
+(``values[0][2]``, ``values['c11']``), as are numbers beyond the 64-bit float
+range (``1e999``, a 400-digit integer), a key given twice in one object (JSON
+readers would silently keep the last) and absurdly deep nesting.
+
+Text and numbers (both formats)
+-------------------------------
+Files are UTF-8; a leading byte-order mark (as spreadsheet programs write) is
+ignored, and a file in another encoding is refused with the line of its first
+non-UTF-8 byte.  The decimal separator is the point: a decimal comma (``1,5``
+in a file separated by semicolons, tabs or blanks, or quoted in a long-form
+line) is refused with a message that says so.  A metadata key given twice with
+different values (two ``# property:`` lines) is refused, naming both lines.
+Every error is a :class:`tensym.errors.DataError` whose message starts with the
+file name (and the line, where there is one); echoed input is cut to 40
+characters.
+
+Writing
+-------
+:func:`write_tensor` writes the whole file or nothing: the text goes to a
+temporary file in the same folder, is synced to disk and renamed onto the
+target (:func:`write_text_atomic`).
 
 Examples
 --------
@@ -64,6 +87,7 @@ Examples
 [[2.0, 0.0, 0.0], [0.0, 2.0, 0.0], [0.0, 0.0, 3.0]]
 """
 
+import csv
 import errno
 import json
 import os
@@ -73,7 +97,7 @@ import numpy as np
 
 from tensym.data.dataset import LAYOUTS, TensorData, tensor_data
 from tensym.data.model import layout as _layout
-from tensym.errors import DataError, InvalidOptionError
+from tensym.errors import DataError, InvalidOptionError, UnknownPropertyError
 from tensym.tensors.form import as_property
 
 __all__ = ["read_tensor", "write_tensor", "write_text_atomic", "data_record", "FORMAT_TAG", "FILE_FORMATS"]
@@ -354,18 +378,104 @@ def read_tensor(path, what=None, *, format="auto", units=None, symmetry_tol=1e-8
     """
     fmt = _format_of(path, format)
     try:
-        with open(path, encoding="utf-8") as fh:
-            text = fh.read()
+        with open(path, "rb") as fh:
+            raw = fh.read()
     except OSError as exc:
-        raise DataError(f"cannot read {os.fspath(path)!r}: {exc.strerror or exc}") from exc
-    name = os.path.basename(os.fspath(path))
+        raise DataError(f"cannot read {_cut(os.fspath(path))!r}: {exc.strerror or exc}") from exc
+    name = _cut(os.path.basename(os.fspath(path)))
+    text = _decode(raw, name)
     if fmt == "json":
-        try:
-            obj = json.loads(text)
-        except json.JSONDecodeError as exc:
-            raise DataError(f"{name}: not valid JSON (line {exc.lineno}: {exc.msg})") from exc
+        obj = _parse_json(text, name)
         return _from_json(obj, what, units, symmetry_tol, name)
     return _from_csv(text, what, units, symmetry_tol, name)
+
+
+def _decode(raw, name):
+    """The text of a UTF-8 file (a leading byte-order mark is dropped)."""
+    try:
+        return raw.decode("utf-8-sig")
+    except UnicodeDecodeError as exc:
+        line = raw.count(b"\n", 0, exc.start) + 1
+        col = exc.start - (raw.rfind(b"\n", 0, exc.start) + 1) + 1
+        byte = raw[exc.start:exc.start + 1].hex()
+        raise DataError(f"{name}, line {line}: not UTF-8 text (byte 0x{byte} at column {col}); "
+                        "save the file as UTF-8") from None
+
+
+class _BadNumber:
+    """A JSON number or constant that is no finite float, kept to be reported with its position."""
+
+    def __init__(self, text, why):
+        self.text, self.why = text, why
+
+
+def _json_float(text):
+    v = float(text)
+    return _BadNumber(text, "is too large for a 64-bit float (the largest is about 1.8e308)") if np.isinf(v) else v
+
+
+def _json_int(text):
+    digits = len(text.lstrip("+-"))
+    if digits > 309:
+        return _BadNumber(text, f"is an integer of {digits} digits, too large for a 64-bit float")
+    v = int(text)
+    try:
+        float(v)
+    except OverflowError:
+        return _BadNumber(text, "is too large for a 64-bit float (the largest is about 1.8e308)")
+    return v
+
+
+def _json_constant(text):
+    return _BadNumber(text, "is not a JSON number (JSON has no NaN or Infinity; to leave a component unknown, "
+                            "give the values as an object of components and leave it out)")
+
+
+def _parse_json(text, name):
+    try:
+        return json.loads(text, parse_float=_json_float, parse_int=_json_int, parse_constant=_json_constant,
+                          object_pairs_hook=lambda pairs: _json_object(pairs, name))
+    except json.JSONDecodeError as exc:
+        raise DataError(f"{name}: not valid JSON (line {exc.lineno}: {exc.msg})") from None
+    except RecursionError:
+        raise DataError(f"{name}: the JSON is nested too deeply to be tensor data (a tensym data file "
+                        "nests its values at most a few levels)") from None
+
+
+def _json_object(pairs, name):
+    """A JSON object as a dict; a key given twice is an error (JSON parsers would keep the last silently)."""
+    obj = {}
+    for key, value in pairs:
+        if key in obj:
+            raise DataError(f"{name}: the key {_cut(key)!r} appears twice in one JSON object; keep one")
+        obj[key] = value
+    return obj
+
+
+def _json_array(value, name, where, depth=0):
+    """Nested lists of JSON numbers as nested lists of floats; anything else is an error naming its position."""
+    if isinstance(value, list):
+        if depth >= 8:
+            raise DataError(f"{name}: {where} nests lists more than 8 deep; tensor data are at most rank 8")
+        return [_json_array(v, name, f"{where}[{i}]", depth + 1) for i, v in enumerate(value)]
+    return _json_number(value, name, where)
+
+
+def _json_number(value, name, where):
+    if isinstance(value, _BadNumber):
+        raise DataError(f"{name}: {where} = {_cut(value.text)} {value.why}")
+    if isinstance(value, bool):
+        raise DataError(f"{name}: {where} is {str(value).lower()}, not a number")
+    if value is None:
+        raise DataError(f"{name}: {where} is null, not a number (to leave a component unknown, give the values "
+                        "as an object of components and leave it out)")
+    if isinstance(value, str):
+        why = ("decimal commas are not accepted: write the decimal point, without quotes" if
+               _DECIMAL_COMMA.match(value.strip()) else "write numbers without quotes")
+        raise DataError(f"{name}: {where} is the string {_cut(value)!r}, not a number ({why})")
+    if isinstance(value, dict):
+        raise DataError(f"{name}: {where} is an object, not a number")
+    return float(value)
 
 
 def _merge(meta_value, arg, key, name):
@@ -375,29 +485,44 @@ def _merge(meta_value, arg, key, name):
         return arg
     a = as_property(arg).name if key == "property" else arg
     if str(meta_value).strip() != str(a).strip():
-        raise DataError(f"{name} gives {key} {meta_value!r} but {a!r} was asked for")
+        raise DataError(f"{name} gives {key} {_cut(meta_value)!r} but {_cut(a)!r} was asked for")
     return arg
 
 
+_DECIMAL_COMMA = re.compile(r"^[+-]?\d*,\d+(?:[eE][+-]?\d+)?$")
+_NOT_FINITE_WORDS = ("nan", "+nan", "-nan", "inf", "+inf", "-inf", "infinity", "+infinity", "-infinity")
+
+
+def _decimal_comma_error(name, lineno, token):
+    return DataError(f"{name}, line {lineno}: {_cut(token)!r} has a decimal comma; decimal commas are not "
+                     "accepted: write the decimal point ('1.5', not '1,5')")
+
+
 def _numbers(line, lineno, name):
-    parts = [p for p in _SPLIT.split(line.strip()) if p]
-    try:
-        return [float(p) for p in parts]
-    except ValueError:
-        bad = next(p for p in parts if not _is_float(p))
-        raise DataError(f"{name}, line {lineno}: {bad!r} is not a number") from None
+    """The numbers of a line of the matrix form (separators: commas, semicolons, tabs, blanks)."""
+    words = [w for w in re.split(r"[;\t ]+", line.strip()) if w]
+    if len(words) > 1 or ";" in line or "\t" in line:  # another separator than commas: a comma is a decimal one
+        for w in words:
+            if _DECIMAL_COMMA.match(w):
+                raise _decimal_comma_error(name, lineno, w)
+    return [_number(p, lineno, name) for p in _SPLIT.split(line.strip()) if p]
 
 
-def _is_float(p):
+def _number(token, lineno, name):
     try:
-        float(p)
-        return True
+        v = float(token)
     except ValueError:
-        return False
+        if _DECIMAL_COMMA.match(token.strip()):
+            raise _decimal_comma_error(name, lineno, token.strip()) from None
+        raise DataError(f"{name}, line {lineno}: {_cut(token)!r} is not a number") from None
+    if np.isinf(v) and token.strip().lower() not in _NOT_FINITE_WORDS:
+        raise DataError(f"{name}, line {lineno}: {_cut(token)} is too large for a 64-bit float "
+                        "(the largest is about 1.8e308)")
+    return v
 
 
 def _from_csv(text, what, units, tol, name):
-    meta = {}
+    meta, meta_line = {}, {}
     blocks = [[]]
     header = None
     rows = []
@@ -412,7 +537,12 @@ def _from_csv(text, what, units, tol, name):
                 continue
             m = re.match(r"([A-Za-z_ ]+):\s*(.*)$", body)
             if m and m.group(1).strip().lower() in _META_KEYS:
-                meta[m.group(1).strip().lower()] = m.group(2).strip()
+                key, value = m.group(1).strip().lower(), m.group(2).strip()
+                if key in meta and meta[key] != value:
+                    raise DataError(f"{name}: line {meta_line[key]} gives {key} {_cut(meta[key])!r} but line "
+                                    f"{lineno} gives {_cut(value)!r}; keep one of the two lines")
+                meta[key] = value
+                meta_line.setdefault(key, lineno)
             continue
         if header is None and not blocks[0] and _looks_like_header(line):
             header = [h.strip().lower() for h in line.split(",")]
@@ -424,7 +554,7 @@ def _from_csv(text, what, units, tol, name):
     prop_arg = _merge(meta.get("property"), what, "property", name)
     if prop_arg is None:
         raise DataError(f"{name} does not say which property it holds; pass what=... or add '# property: ...'")
-    prop = as_property(prop_arg)
+    prop = _file_property(prop_arg, what, name)
     u = _merge(meta.get("units"), units, "units", name)
     source = meta.get("source", name)
     if header is not None:
@@ -442,7 +572,7 @@ def _from_csv(text, what, units, tol, name):
         values = values.reshape(vs) if values.size == int(np.prod(vs)) else values
         if sigma is not None and sigma.size == int(np.prod(vs)):
             sigma = sigma.reshape(vs)
-    return tensor_data(values, prop, sigma=sigma, units=u, layout="voigt", symmetry_tol=tol, source=source)
+    return _tensor_data(name, values, prop, sigma=sigma, units=u, layout="voigt", symmetry_tol=tol, source=source)
 
 
 def _looks_like_header(line):
@@ -491,21 +621,26 @@ def _long_form(header, rows, prop, units, tol, name, source):
     if header[:2] != ["component", "value"] or len(header) > 3 or (len(header) == 3 and header[2] not in (
             "uncertainty", "sigma")):
         raise DataError(f"{name}: the long-form header must be 'component,value' or "
-                        f"'component,value,uncertainty', got {','.join(header)!r}")
+                        f"'component,value,uncertainty', got {_cut(','.join(header))!r}")
     has_unc = len(header) == 3
     vals = {}
     uncs = {}
     for lineno, line in rows:
-        parts = [p.strip() for p in line.split(",")]
+        parts = [p.strip() for p in next(csv.reader([line], skipinitialspace=True))]
         if len(parts) != len(header):
+            hint = ""
+            if len(parts) > len(header) and any(
+                    _DECIMAL_COMMA.match(f"{a},{b}") for a, b in zip(parts[1:], parts[2:])):
+                hint = ("; if a value has a decimal comma: decimal commas are not accepted, write the decimal "
+                        "point ('1.5', not '1,5')")
             raise DataError(f"{name}, line {lineno}: expected {len(header)} fields ({','.join(header)}), "
-                            f"got {len(parts)}")
+                            f"got {len(parts)}{hint}")
         where = _component_index(parts[0], prop, lay)
         if where is None:
-            raise DataError(f"{name}, line {lineno}: {parts[0]!r} is not a component of {prop.name}: give a Voigt "
-                            f"label such as {lay.labels[0]!r} ({len(prop.voigt_groups)} digits) or "
+            raise DataError(f"{name}, line {lineno}: {_cut(parts[0])!r} is not a component of {prop.name}: "
+                            f"give a Voigt label such as {lay.labels[0]!r} ({len(prop.voigt_groups)} digits) or "
                             f"{lay.rank} Cartesian indices 1-3")
-        nums = _numbers(" ".join(parts[1:]), lineno, name)
+        nums = [_number(p, lineno, name) for p in parts[1:]]
         c, sign, factor = where
         if c == "zero":
             if nums[0] != 0:
@@ -518,6 +653,9 @@ def _long_form(header, rows, prop, units, tol, name, source):
                 raise DataError(f"{name}, line {lineno}: the uncertainty must be strictly positive, "
                                 f"got {nums[1]:g}")
             uncs.setdefault(c, []).append((nums[1] / factor, lineno))
+    if not vals:
+        raise DataError(f"{name}: no components: the long-form table has its header but no 'component,value' "
+                        "lines" + (" other than components the index symmetry makes zero" if rows else ""))
     scale = max([abs(v) for lst in vals.values() for v, _ in lst] + [0.0])
     x = np.zeros(lay.n)
     for c, lst in vals.items():
@@ -539,7 +677,7 @@ def _long_form(header, rows, prop, units, tol, name, source):
             if any(abs(s - s0) > tol * max(abs(s0), 1e-300) for s, _ in lst[1:]):
                 raise DataError(f"{name}: the uncertainties given for {lay.labels[c]} disagree")
             sigma[c] = s0
-    return tensor_data(x, prop, sigma=sigma, units=units, layout="components", source=source)
+    return _tensor_data(name, x, prop, sigma=sigma, units=units, layout="components", source=source)
 
 
 def _from_json(obj, what, units, tol, name):
@@ -548,21 +686,28 @@ def _from_json(obj, what, units, tol, name):
     known = {"format", "property", "units", "layout", "values", "uncertainty", "covariance", "source", "note"}
     extra = sorted(set(obj) - known)
     if extra:
-        raise DataError(f"{name}: unknown keys {', '.join(map(repr, extra))}; accepted: {', '.join(sorted(known))}")
+        raise DataError(f"{name}: unknown keys {', '.join(repr(_cut(k)) for k in extra[:5])}"
+                        f"{', ...' if len(extra) > 5 else ''}; accepted: {', '.join(sorted(known))}")
+    for key in ("units", "source", "note"):  # optional: null is the same as leaving the key out
+        if key in obj and obj[key] is None:
+            del obj[key]
+    for key in ("format", "property", "units", "layout", "source", "note"):
+        if key in obj and not isinstance(obj[key], str):
+            raise DataError(f"{name}: \"{key}\" must be a string, got {_json_kind(obj[key])}")
     tag = obj.get("format", FORMAT_TAG)
     if tag != FORMAT_TAG:
-        raise DataError(f"{name}: format {tag!r} is not {FORMAT_TAG!r}")
+        raise DataError(f"{name}: format {_cut(tag)!r} is not {FORMAT_TAG!r}")
     prop_arg = _merge(obj.get("property"), what, "property", name)
     if prop_arg is None:
         raise DataError(f"{name} does not say which property it holds; pass what=... or add \"property\"")
-    prop = as_property(prop_arg)
+    prop = _file_property(prop_arg, what, name)
     lay = _layout(prop)
     u = _merge(obj.get("units"), units, "units", name)
     if "values" not in obj:
         raise DataError(f"{name}: no \"values\"")
     layout = obj.get("layout", "auto")
     if layout not in LAYOUTS:
-        raise DataError(f"{name}: layout {layout!r} is not one of {', '.join(LAYOUTS)}")
+        raise DataError(f"{name}: layout {_cut(layout)!r} is not one of {', '.join(LAYOUTS)}")
     values, unc = obj["values"], obj.get("uncertainty")
     if isinstance(values, dict):
         values = _dict_components(values, prop, lay, name, "values")
@@ -570,6 +715,9 @@ def _from_json(obj, what, units, tol, name):
         layout = "components"
     elif isinstance(unc, dict):
         raise DataError(f"{name}: \"uncertainty\" must have the form of \"values\"")
+    else:
+        values = _json_array(values, name, "values")
+        unc = None if unc is None else _json_array(unc, name, "uncertainty")
     cov = None
     if "covariance" in obj:
         if unc is not None:
@@ -577,18 +725,50 @@ def _from_json(obj, what, units, tol, name):
         cv = obj["covariance"]
         if not isinstance(cv, dict) or set(cv) != {"labels", "matrix"}:
             raise DataError(f"{name}: \"covariance\" must be {{\"labels\": [...], \"matrix\": [[...]]}}")
-        labels = [str(v) for v in cv["labels"]]
+        if not isinstance(cv["labels"], list) or not all(isinstance(v, str) for v in cv["labels"]):
+            raise DataError(f"{name}: covariance \"labels\" must be a list of component labels (strings)")
+        labels = list(cv["labels"])
         if sorted(labels) != sorted(lay.labels) or len(labels) != lay.n:
             missing = sorted(set(lay.labels) - set(labels))
             raise DataError(f"{name}: the covariance must cover every distinct component exactly once"
                             + (f"; missing: {', '.join(missing[:8])}" if missing else ""))
-        m = np.array(cv["matrix"], dtype=np.float64)
-        if m.shape != (lay.n, lay.n):
-            raise DataError(f"{name}: covariance matrix must be {lay.n} x {lay.n}, got {m.shape}")
+        rows = _json_array(cv["matrix"], name, "covariance.matrix")
+        if not isinstance(rows, list) or len(rows) != lay.n or any(
+                not isinstance(r, list) or len(r) != lay.n or any(isinstance(x, list) for x in r) for r in rows):
+            shape = np.shape(rows) if isinstance(rows, list) and len({len(r) if isinstance(r, list) else -1
+                                                                     for r in rows}) == 1 else "ragged rows"
+            raise DataError(f"{name}: covariance matrix must be {lay.n} x {lay.n}, got {shape}")
+        m = np.array(rows, dtype=np.float64)
         perm = [labels.index(lb) for lb in lay.labels]
         cov = m[np.ix_(perm, perm)]
-    return tensor_data(values, prop, sigma=unc, covariance=cov, units=u, layout=layout, symmetry_tol=tol,
-                       source=obj.get("source", name))
+    return _tensor_data(name, values, prop, sigma=unc, covariance=cov, units=u, layout=layout,
+                        symmetry_tol=tol, source=obj.get("source", name))
+
+
+def _file_property(prop_arg, what, name):
+    """The property named by the file (or by ``what``); a file's unknown name is reported with the file."""
+    try:
+        return as_property(prop_arg)
+    except UnknownPropertyError as exc:
+        if what is not None:
+            raise
+        raise UnknownPropertyError(f"{name}: {exc}") from exc
+
+
+def _tensor_data(name, values, prop, **kw):
+    """tensor_data(values, prop, **kw), its errors prefixed with the file name."""
+    try:
+        return tensor_data(values, prop, **kw)
+    except DataError as exc:
+        raise DataError(f"{name}: {exc}") from exc
+
+
+def _json_kind(value):
+    if isinstance(value, _BadNumber):
+        return f"the number {_cut(value.text)}"
+    kinds = {bool: "true/false", type(None): "null", list: "a list", dict: "an object", int: "a number",
+             float: "a number"}
+    return kinds.get(type(value), type(value).__name__)
 
 
 def _dict_components(d, prop, lay, name, what, need_all=False):
@@ -597,12 +777,9 @@ def _dict_components(d, prop, lay, name, what, need_all=False):
     for key, val in d.items():
         where = _component_index(str(key), prop, lay)
         if where is None or where[0] == "zero":
-            raise DataError(f"{name}: {key!r} in {what} is not a component of {prop.name}")
+            raise DataError(f"{name}: {_cut(key)!r} in {what} is not a component of {prop.name}")
         c, sign, factor = where
-        try:
-            v = float(val)
-        except (TypeError, ValueError):
-            raise DataError(f"{name}: {what}[{key!r}] = {val!r} is not a number") from None
+        v = _json_number(val, name, f"{what}[{_cut(key)!r}]")
         v = abs(v) / factor if what == "uncertainty" else v * sign / factor
         if c in seen and not np.isclose(x[c], v, rtol=1e-12, atol=0):
             raise DataError(f"{name}: {lay.labels[c]} is given twice in {what} with different values")

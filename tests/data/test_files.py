@@ -13,7 +13,7 @@ import pytest
 
 import tensym
 import tensym.data.io as tio
-from tensym.errors import DataError, InvalidOptionError
+from tensym.errors import DataError, InvalidOptionError, UnknownPropertyError
 
 EPS = "# property: dielectric_permittivity\n2, 0, 0\n0, 2, 0\n0, 0, 3\n"
 
@@ -127,3 +127,173 @@ def test_write_without_overwrite_refuses_an_existing_file(tmp_path):
     assert tensym.read_tensor(tmp_path / "new.csv").voigt[0, 0] == 1.0
     with pytest.raises(InvalidOptionError, match="overwrite must be True or False, got 'no'"):
         tensym.write_tensor(d, tmp_path / "x.csv", overwrite="no")
+
+
+# --- reading: encodings -------------------------------------------------------------------------
+def _put(tmp_path, name, data):
+    p = tmp_path / name
+    p.write_bytes(data if isinstance(data, bytes) else data.encode("utf-8"))
+    return p
+
+
+@pytest.mark.parametrize("name, text", [
+    ("eps.csv", EPS),
+    ("eps_long.csv", "# property: dielectric_permittivity\ncomponent,value\n11,2\n22,2\n33,3\n12,0\n13,0\n23,0\n"),
+    ("eps.json", json.dumps({"property": "dielectric_permittivity", "values": [[2, 0, 0], [0, 2, 0], [0, 0, 3]]})),
+])
+def test_spreadsheet_saved_the_file_with_a_byte_order_mark(tmp_path, name, text):
+    # the UTF-8 signature EF BB BF that spreadsheet programs write (Unicode Standard, section 23.8)
+    d = tensym.read_tensor(_put(tmp_path, name, b"\xef\xbb\xbf" + text.encode("utf-8")))
+    assert d.property.name == "dielectric_permittivity" and d.voigt[2, 2] == 3.0
+
+
+@pytest.mark.parametrize("name, data, where", [
+    ("c.csv", "# property: dielectric_permittivity\n# source: Müller lab\n2,0,0\n0,2,0\n0,0,3\n".encode("latin-1"),
+     r"c.csv, line 2: not UTF-8 text \(byte 0xfc at column 12\); save the file as UTF-8"),
+    ("c.json", '{"property": "pyroelectric",\n "source": "Müller", "values": [0, 0, 1]}'.encode("cp1252"),
+     r"c.json, line 2: not UTF-8 text \(byte 0xfc"),
+    ("utf16.csv", EPS.encode("utf-16"), r"utf16.csv, line 1: not UTF-8 text \(byte 0xff at column 1\)"),
+])
+def test_file_saved_in_another_encoding(tmp_path, name, data, where):
+    with pytest.raises(DataError, match=where):
+        tensym.read_tensor(_put(tmp_path, name, data))
+
+
+# --- reading: JSON numbers ----------------------------------------------------------------------
+def _json_file(tmp_path, text, name="bad.json"):
+    return _put(tmp_path, name, text)
+
+
+EPS_JSON = '{{"property": "dielectric_permittivity", "values": [[{a}, 0, 0], [0, 2, 0], [0, 0, 3]]}}'
+
+
+@pytest.mark.parametrize("number, match", ids=lambda v: v[:12] if isinstance(v, str) else None, argvalues=[
+    ("1e999", r"values\[0\]\[0\] = 1e999 is too large for a 64-bit float"),
+    ("-1e999", r"values\[0\]\[0\] = -1e999 is too large"),
+    ("1.8e308", r"= 1.8e308 is too large"),  # above the largest double, 1.7976931348623157e308 (IEEE 754)
+    ("9" * 400, r"= 9{40}\.\.\. is an integer of 400 digits, too large for a 64-bit float"),
+    ("9" * 5000, r"is an integer of 5000 digits"),  # past Python's 4300-digit int parsing limit too
+    ("1" + "0" * 308 + "1", r"is an integer of 310 digits"),
+    ("2" + "0" * 308, r"= 2000.* is too large for a 64-bit float"),  # 309 digits, above 1.8e308
+    ("NaN", r"= NaN is not a JSON number \(JSON has no NaN or Infinity"),
+    ("Infinity", r"= Infinity is not a JSON number"),
+    ("-Infinity", r"= -Infinity is not a JSON number"),
+    ("true", r"values\[0\]\[0\] is true, not a number"),
+    ("false", r"values\[0\]\[0\] is false, not a number"),
+    ("null", r"values\[0\]\[0\] is null, not a number"),
+    ('"2"', r"values\[0\]\[0\] is the string '2', not a number \(write numbers without quotes\)"),
+    ('"1,5"', r"is the string '1,5', not a number \(decimal commas are not accepted: write the decimal point"),
+    ("{}", r"values\[0\]\[0\] is an object, not a number"),
+])
+def test_json_entry_that_is_no_float(tmp_path, number, match):
+    with pytest.raises(DataError, match=match) as info:
+        tensym.read_tensor(_json_file(tmp_path, EPS_JSON.format(a=number)))
+    assert str(info.value).startswith("bad.json: values[0][0] ") and len(str(info.value)) < 250
+
+
+def test_json_largest_double_still_reads(tmp_path):
+    d = tensym.read_tensor(_json_file(tmp_path, EPS_JSON.format(a="1.7976931348623157e308"), "ok.json"))
+    assert d.voigt[0, 0] == pytest.approx(1.7976931348623157e308, rel=1e-15)
+
+
+@pytest.mark.parametrize("obj_text, match", [
+    ('{"property": "pyroelectric", "values": {"p3": true}}', r"values\['p3'\] is true, not a number"),
+    ('{"property": "pyroelectric", "values": {"p3": 1e400}}', r"values\['p3'\] = 1e400 is too large"),
+    ('{"property": "pyroelectric", "values": [0, 0, 1], "uncertainty": [0.1, "0.1", 0.1]}',
+     r"uncertainty\[1\] is the string '0.1', not a number"),
+    ('{"property": "pyroelectric", "values": {"p1": 0, "p2": 0, "p3": 1}, '
+     '"uncertainty": {"p1": 1, "p2": 1, "p3": false}}', r"uncertainty\['p3'\] is false"),
+    ('{"property": "pyroelectric", "values": [0, 0, 1], "covariance": {"labels": ["p1", "p2", "p3"], '
+     '"matrix": [[1, 0, 0], [0, 1, 0], [0, 0, null]]}}', r"covariance.matrix\[2\]\[2\] is null, not a number"),
+    ('{"property": "pyroelectric", "values": [0, 0, 1], "covariance": {"labels": ["p1", "p2", 3], '
+     '"matrix": [[1, 0, 0], [0, 1, 0], [0, 0, 1]]}}', r'covariance "labels" must be a list of component labels'),
+    ('{"property": "pyroelectric", "values": [0, 0, 1], "covariance": {"labels": ["p1", "p2", "p3"], '
+     '"matrix": [[1, 0, 0], [0, 1], [0, 0, 1]]}}', r"covariance matrix must be 3 x 3, got ragged rows"),
+    ('{"property": 5, "values": [0, 0, 1]}', r'"property" must be a string, got a number'),
+    ('{"property": "pyroelectric", "units": 1e999, "values": [0, 0, 1]}', r'"units" must be a string, got the number 1e999'),
+    ('{"property": "pyroelectric", "format": ["tensym-data/1"], "values": [0, 0, 1]}', r'"format" must be a string, got a list'),
+    ('{"property": "pyroelectric", "property": "elastic_stiffness", "values": [0, 0, 1]}',
+     r"the key 'property' appears twice in one JSON object; keep one"),
+    ('{"property": "pyroelectric", "values": {"p3": 1, "p3": 2}}', r"the key 'p3' appears twice"),
+    ('{"property": "pyroelectric", "values": "0, 0, 1"}', r"values is the string '0, 0, 1', not a number"),
+    ('{"property": "pyroelectric", "values": [0, 0, 1], "x": 1}', r"unknown keys 'x'"),
+    ('{"property": "pyroelectric", "values": [[[[[[[[[[1]]]]]]]]]]}', r"values\[0\]\[0\]\[0\]\[0\]\[0\]\[0\]\[0\]\[0\] "
+                                                                        r"nests lists more than 8 deep"),
+    ('{"property": "pyroelectric", "values": [0, 0, 1e999]}', r"values\[2\] = 1e999 is too large"),
+    ('{"property": "pyroelectric", "values": [0, 0, 0, 1]}', r"bad.json: values for pyroelectric must have shape"),
+    ('{"property": "pyroelectirc", "values": [0, 0, 1]}', r"bad.json: unknown property 'pyroelectirc'"),
+])
+def test_json_file_with_a_wrong_entry(tmp_path, obj_text, match):
+    with pytest.raises(DataError if "unknown property" not in match else UnknownPropertyError, match=match):
+        tensym.read_tensor(_json_file(tmp_path, obj_text))
+
+
+@pytest.mark.parametrize("depth", [1000, 100_000])
+def test_json_nested_absurdly_deep(tmp_path, depth):
+    text = '{"property": "pyroelectric", "values": ' + "[" * depth + "]" * depth + "}"
+    with pytest.raises(DataError, match="bad.json: .*nest"):
+        tensym.read_tensor(_json_file(tmp_path, text))
+
+
+# --- reading: CSV numbers -----------------------------------------------------------------------
+@pytest.mark.parametrize("text, match", [
+    ("# property: dielectric_permittivity\n2,5;0;0\n0;2;0\n0;0;3\n",
+     r"bad.csv, line 2: '2,5' has a decimal comma; decimal commas are not accepted: write the decimal point"),
+    ("# property: dielectric_permittivity\n2,5\t0\t0\n0\t2\t0\n0\t0\t3\n", r"line 2: '2,5' has a decimal comma"),
+    ("# property: dielectric_permittivity\n2 0 0\n0 2,25 0\n0 0 3\n", r"line 3: '2,25' has a decimal comma"),
+    ("# property: dielectric_permittivity\n2;0;0\n0;2;0\n0;0;-1,5e3\n", r"line 4: '-1,5e3' has a decimal comma"),
+    ("# property: dielectric_permittivity\ncomponent,value\n11,\"1,5\"\n", r"line 3: '1,5' has a decimal comma"),
+    ("# property: dielectric_permittivity\ncomponent,value\n11,1,5\n",
+     r"line 3: expected 2 fields \(component,value\), got 3; if a value has a decimal comma: decimal commas are "
+     r"not accepted"),
+    ("# property: dielectric_permittivity\ncomponent,value,uncertainty\n11,1,5,0,1\n",
+     r"got 5; if a value has a decimal comma"),
+    ("# property: dielectric_permittivity\n1e999, 0, 0\n0, 1, 0\n0, 0, 1\n",
+     r"line 2: 1e999 is too large for a 64-bit float"),
+    ("# property: dielectric_permittivity\ncomponent,value\n11,-1e400\n", r"line 3: -1e400 is too large"),
+    ("# property: dielectric_permittivity\ninf, 0, 0\n0, 1, 0\n0, 0, 1\n",
+     r"bad.csv: values contains inf .* at entry \(1, 1\)"),
+    ("# property: dielectric_permittivity\n1, 0, 0\n0, " + "7" * 10_000 + "x, 0\n0, 0, 1\n",
+     r"line 3: '7{40}\.\.\.' is not a number$"),
+])
+def test_csv_number_written_the_wrong_way(tmp_path, text, match):
+    with pytest.raises(DataError, match=match):
+        tensym.read_tensor(_put(tmp_path, "bad.csv", text))
+
+
+def test_comma_separated_rows_are_not_taken_for_decimal_commas(tmp_path):
+    d = tensym.read_tensor(_put(tmp_path, "e.csv", "# property: dielectric_permittivity\n2,0,0\n0,2.5,0\n0,0,3\n"))
+    assert d.voigt[1, 1] == 2.5
+    d = tensym.read_tensor(_put(tmp_path, "f.csv", "# property: dielectric_permittivity\n2, 0, 0\n0, 2, 0\n0,0,3\n"))
+    assert d.voigt[2, 2] == 3.0
+
+
+# --- reading: metadata and empty tables ---------------------------------------------------------
+@pytest.mark.parametrize("text, match", [
+    ("# property: dielectric_permittivity\n# property: elastic_stiffness\n2,0,0\n0,2,0\n0,0,3\n",
+     r"bad.csv: line 1 gives property 'dielectric_permittivity' but line 2 gives 'elastic_stiffness'; keep one"),
+    ("# property: dielectric_permittivity\n# units: 1\n2,0,0\n0,2,0\n0,0,3\n# units: F/m\n",
+     r"line 2 gives units '1' but line 6 gives 'F/m'"),
+    ("# source: run 1\n# property: pyroelectric\n# source: run 2\n0, 0, 1\n", r"line 1 gives source 'run 1' but line 3"),
+])
+def test_csv_with_two_conflicting_metadata_lines(tmp_path, text, match):
+    with pytest.raises(DataError, match=match):
+        tensym.read_tensor(_put(tmp_path, "bad.csv", text))
+
+
+def test_csv_with_the_same_metadata_line_twice_reads(tmp_path):
+    text = "# property: pyroelectric\n# units: uC/(m^2 K)\n# property: pyroelectric\n0, 0, -4.5\n"
+    d = tensym.read_tensor(_put(tmp_path, "p.csv", text))
+    assert d.property.name == "pyroelectric" and d.components.tolist() == [0.0, 0.0, -4.5]
+
+
+@pytest.mark.parametrize("text, match", [
+    ("# property: elastic_stiffness\ncomponent,value\n", r"bad.csv: no components: the long-form table has its "
+                                                         r"header but no 'component,value' lines$"),
+    ("# property: elastic_stiffness\ncomponent,value,uncertainty\n\n# nothing yet\n", r"bad.csv: no components"),
+    ("component,value\n11,0\n22,0\n", r"no components: .* other than components the index symmetry makes zero"),
+])
+def test_long_form_csv_with_only_its_header(tmp_path, text, match):
+    what = tensym.TensorSpec(2, ["-ji"]) if "11,0" in text else None
+    with pytest.raises(DataError, match=match):
+        tensym.read_tensor(_put(tmp_path, "bad.csv", text), what)

@@ -158,7 +158,7 @@ def test_file_level_refusals(tmp_path):
     ({"property": "pyroelectric", "values": [0, 0, 1],
       "covariance": {"labels": ["p1", "p2", "p3"], "matrix": np.eye(2).tolist()}}, "must be 3 x 3"),
     ({"property": "pyroelectric", "values": {"p4": 1.0}}, "'p4' in values is not a component"),
-    ({"property": "pyroelectric", "values": {"p3": "big"}}, "is not a number"),
+    ({"property": "pyroelectric", "values": {"p3": "big"}}, r"values\['p3'\] is the string 'big', not a number"),
     ({"property": "dielectric_permittivity", "values": {"12": 1.0, "21": 2.0}}, "given twice"),
     ({"property": "pyroelectric", "values": {"p3": 1.0}, "uncertainty": {"p3": 0.1}}, "missing: p1, p2"),
 ])
