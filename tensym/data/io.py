@@ -26,8 +26,15 @@ Cartesian indices, 1-based, one digit per index (``1111``, ``2323``,
 ``311``); a Voigt label has one digit per Voigt group, Cartesian indices one
 per tensor index, so the two cannot be confused.  Entries that the index
 symmetry makes equal may be listed several times (``c12`` and ``c21``) and must
-agree.  Without an uncertainty column an unlisted component is zero; with
-one, every distinct component must be listed.
+agree.
+
+Partial data: a component the file does not list is *unknown*, never zero.
+The reader gives it the value NaN (and NaN uncertainty), the marker of an
+unknown component in :class:`tensym.TensorData`; where the data layer does not
+take unknown components, reading stops with an error that lists the missing
+ones.  To say that a component is zero, list it with the value 0
+(``c14,0``; in JSON ``"c14": 0``).  The same holds for a JSON ``values``
+object of components.
 
 JSON
 ----
@@ -124,6 +131,18 @@ def _fmt(v):
 def data_record(data):
     """The JSON-ready dict of a TensorData in the tensym data format."""
     lay = data.layout
+    known = ~np.isnan(np.asarray(data.components, dtype=np.float64))
+    if not known.all():  # partial data: an object of the known components (unknown ones left out)
+        rec = {"format": FORMAT_TAG, "property": data.property.name, "units": data.units, "layout": "components",
+               "values": {lab: float(v) for lab, v, k in zip(lay.labels, data.components, known) if k}}
+        if data.covariance is not None:
+            cov = np.asarray(data.covariance)
+            if np.count_nonzero(np.nan_to_num(cov - np.diag(np.diag(cov)))):
+                raise DataError("partial data with a full covariance cannot be written: the covariance "
+                                "needs every component")
+            rec["uncertainty"] = {lab: float(v) for lab, v, k in zip(lay.labels, data.sigma, known) if k}
+        rec["source"] = data.source
+        return rec
     rec = {"format": FORMAT_TAG, "property": data.property.name, "units": data.units, "layout": "voigt",
            "values": data.voigt.tolist()}
     if data.covariance is not None:
@@ -311,10 +330,11 @@ def _csv_text(data):
     if data.units:
         head.append(f"# units: {data.units}")
     cov = None if data.covariance is None else np.asarray(data.covariance)
-    if cov is not None and np.count_nonzero(cov - np.diag(np.diag(cov))):
+    if cov is not None and np.count_nonzero(np.nan_to_num(cov - np.diag(np.diag(cov)))):
         raise DataError("a full covariance cannot be written to CSV; write JSON (format='json')")
     v = data.voigt
-    if v.ndim <= 2:
+    known = ~np.isnan(np.asarray(data.components, dtype=np.float64))
+    if v.ndim <= 2 and known.all():
         mat = v.reshape(v.shape[0], -1) if v.ndim else v.reshape(1, 1)
         rows = [", ".join(_fmt(a) for a in row) for row in mat]
         if cov is not None:
@@ -325,6 +345,8 @@ def _csv_text(data):
         rows = ["component,value" + (",uncertainty" if cov is not None else "")]
         sig = data.sigma
         for c, lab in enumerate(lay.labels):
+            if not known[c]:  # unknown: left out (module notes, "Partial data")
+                continue
             rows.append(f"{lab},{_fmt(data.components[c])}" + (f",{_fmt(sig[c])}" if sig is not None else ""))
     return "\n".join(head + rows) + "\n"
 
@@ -360,21 +382,30 @@ def read_tensor(path, what=None, *, format="auto", units=None, symmetry_tol=1e-8
     Raises
     ------
     DataError
-        For a missing or unreadable file, a malformed line (with its line
-        number), a property or units that disagree with the file, and every
-        check of :func:`tensym.tensor_data`.
+        For a missing or unreadable file, a file that is not UTF-8, a
+        malformed line or entry (with its line number or JSON position: no
+        decimal commas, JSON numbers only, within the float range), two
+        metadata lines that disagree, a long-form table with no components,
+        components left unknown where the data layer needs them all, a
+        property or units that disagree with the file, and every check of
+        :func:`tensym.tensor_data` (each message starts with the file name).
+    UnknownPropertyError
+        For a property name (in the file or in ``what``) not in the catalog.
     InvalidOptionError
         For a format outside the set.
 
     Examples
     --------
     >>> import os, tempfile
-    >>> path = os.path.join(tempfile.mkdtemp(), "d.csv")
-    >>> lines = ["# units: pC/N", "component,value", "d33,6", "d31,-1", "d32,-1"]
+    >>> path = os.path.join(tempfile.mkdtemp(), "p.csv")
+    >>> lines = ["# units: uC/(m^2 K)", "component,value", "p3,-4.5", "p1,0", "p2,0"]
     >>> _ = open(path, "w").write(chr(10).join(lines))
-    >>> d = read_tensor(path, "piezoelectric_d")
-    >>> d["d33"], d.units, d.source
-    (6.0, 'pC/N', 'd.csv')
+    >>> d = read_tensor(path, "pyroelectric")
+    >>> d["p3"], d.units, d.source
+    (-4.5, 'uC/(m^2 K)', 'p.csv')
+
+    ``p1,0`` and ``p2,0`` say that those components are zero; without them
+    they would be unknown (module notes, "Partial data").
     """
     fmt = _format_of(path, format)
     try:
@@ -657,7 +688,7 @@ def _long_form(header, rows, prop, units, tol, name, source):
         raise DataError(f"{name}: no components: the long-form table has its header but no 'component,value' "
                         "lines" + (" other than components the index symmetry makes zero" if rows else ""))
     scale = max([abs(v) for lst in vals.values() for v, _ in lst] + [0.0])
-    x = np.zeros(lay.n)
+    x = np.full(lay.n, np.nan)  # components the file does not list are unknown
     for c, lst in vals.items():
         v0, l0 = lst[0]
         for v, ln in lst[1:]:
@@ -667,17 +698,38 @@ def _long_form(header, rows, prop, units, tol, name, source):
         x[c] = np.mean([v for v, _ in lst])
     sigma = None
     if has_unc:
-        missing = [lay.labels[c] for c in range(lay.n) if c not in vals]
-        if missing:
-            raise DataError(f"{name}: with uncertainties every distinct component must be listed; missing: "
-                            f"{', '.join(missing[:10])}{', ...' if len(missing) > 10 else ''}")
-        sigma = np.zeros(lay.n)
+        sigma = np.full(lay.n, np.nan)
         for c, lst in uncs.items():
             s0 = lst[0][0]
             if any(abs(s - s0) > tol * max(abs(s0), 1e-300) for s, _ in lst[1:]):
                 raise DataError(f"{name}: the uncertainties given for {lay.labels[c]} disagree")
             sigma[c] = s0
-    return _tensor_data(name, x, prop, sigma=sigma, units=units, layout="components", source=source)
+    return _partial_data(name, x, prop, sigma, units=units, source=source, hint="a line 'LABEL,0'")
+
+
+def _partial_data(name, x, prop, sigma, *, hint, **kw):
+    """TensorData of the distinct components ``x`` (NaN: not given, unknown), errors prefixed with the file name.
+
+    Where tensor_data refuses unknown (NaN) components, the refusal says which
+    components are missing and how to mark a zero, instead of speaking of NaN.
+    """
+    try:
+        return tensor_data(x, prop, sigma=sigma, layout="components", **kw)
+    except DataError as exc:
+        unknown = np.isnan(x)
+        if not unknown.any():
+            raise DataError(f"{name}: {exc}") from exc
+        probe_sigma = None if sigma is None else np.where(np.isnan(sigma), 1.0, sigma)
+        try:  # the same data with the unknowns set: does anything else fail?
+            tensor_data(np.where(unknown, 0.0, x), prop, sigma=probe_sigma, layout="components", **kw)
+        except DataError as exc0:
+            raise DataError(f"{name}: {exc0}") from exc0
+        lay = _layout(prop)
+        missing = [lay.labels[c] for c in np.flatnonzero(unknown)]
+        raise DataError(f"{name} gives {lay.n - len(missing)} of the {lay.n} distinct components of {prop.name}; "
+                        f"the others are unknown, not zero, and tensor data need every component (missing: "
+                        f"{', '.join(missing[:8])}{', ...' if len(missing) > 8 else ''}); mark a zero "
+                        f"component with 0 ({hint})") from exc
 
 
 def _from_json(obj, what, units, tol, name):
@@ -711,7 +763,7 @@ def _from_json(obj, what, units, tol, name):
     values, unc = obj["values"], obj.get("uncertainty")
     if isinstance(values, dict):
         values = _dict_components(values, prop, lay, name, "values")
-        unc = None if unc is None else _dict_components(unc, prop, lay, name, "uncertainty", need_all=True)
+        unc = None if unc is None else _dict_components(unc, prop, lay, name, "uncertainty")
         layout = "components"
     elif isinstance(unc, dict):
         raise DataError(f"{name}: \"uncertainty\" must have the form of \"values\"")
@@ -741,6 +793,9 @@ def _from_json(obj, what, units, tol, name):
         m = np.array(rows, dtype=np.float64)
         perm = [labels.index(lb) for lb in lay.labels]
         cov = m[np.ix_(perm, perm)]
+    if layout == "components" and isinstance(values, np.ndarray):  # an object of components
+        return _partial_data(name, values, prop, unc, covariance=cov, units=u, source=obj.get("source", name),
+                             hint="\"LABEL\": 0 in \"values\"")
     return _tensor_data(name, values, prop, sigma=unc, covariance=cov, units=u, layout=layout,
                         symmetry_tol=tol, source=obj.get("source", name))
 
@@ -771,8 +826,8 @@ def _json_kind(value):
     return kinds.get(type(value), type(value).__name__)
 
 
-def _dict_components(d, prop, lay, name, what, need_all=False):
-    x = np.zeros(lay.n)
+def _dict_components(d, prop, lay, name, what):
+    x = np.full(lay.n, np.nan)  # components not given are unknown
     seen = set()
     for key, val in d.items():
         where = _component_index(str(key), prop, lay)
@@ -785,8 +840,4 @@ def _dict_components(d, prop, lay, name, what, need_all=False):
             raise DataError(f"{name}: {lay.labels[c]} is given twice in {what} with different values")
         seen.add(c)
         x[c] = v
-    if need_all and len(seen) != lay.n:
-        missing = [lay.labels[c] for c in range(lay.n) if c not in seen]
-        raise DataError(f"{name}: with uncertainties every distinct component must be listed; missing: "
-                        f"{', '.join(missing[:10])}{', ...' if len(missing) > 10 else ''}")
     return x

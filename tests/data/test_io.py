@@ -46,8 +46,9 @@ def test_csv_vector_property(tmp_path):
 
 
 def test_csv_long_form_voigt_and_cartesian_labels(tmp_path):
+    zeros = "".join(f"{lb},0\n" for lb in ("d11", "d12", "d13", "d14", "d23", "d25", "d26", "d34", "d35", "d36"))
     text = ("# property: piezoelectric_d\n# units: pC/N\ncomponent,value\n"
-            "d15,68\n24,68\nd16,-42\nd21,-21\nd22,21\n311,-1\n322,-1\nd33,6\n")
+            "d15,68\n24,68\nd16,-42\nd21,-21\nd22,21\n311,-1\n322,-1\nd33,6\n" + zeros)
     d = tensym.read_tensor(_write(tmp_path, "d.csv", text))
     # '311' is Cartesian d_311 = d31; '24' the Voigt label d24
     assert d["d31"] == -1.0 and d["d24"] == 68.0 and d["d16"] == -42.0
@@ -64,7 +65,9 @@ def test_csv_long_form_cartesian_factor_and_uncertainties(tmp_path):
 
 
 def test_csv_long_form_third_order(tmp_path):
-    text = "component,value\nC111,-2000\nC123,100\nC213,100\n"
+    zeros = "".join(f"{lb},0\n" for lb in tensym.component_labels("third_order_elastic")
+                    if lb not in ("C111", "C123"))
+    text = "component,value\nC111,-2000\nC123,100\nC213,100\n" + zeros
     d = tensym.read_tensor(_write(tmp_path, "t.csv", text), "third_order_elastic")
     assert d["C111"] == -2000.0 and d["C123"] == 100.0
 
@@ -92,6 +95,7 @@ def test_round_trips(tmp_path):
 def test_json_components_dict(tmp_path):
     obj = {"format": "tensym-data/1", "property": "piezoelectric_d", "units": "pC/N",
            "values": {"d11": 2.31, "d12": -2.31, "d14": -0.727, "d25": 0.727, "d26": -4.62}}
+    obj["values"].update({lb: 0 for lb in tensym.component_labels("piezoelectric_d") if lb not in obj["values"]})
     d = tensym.read_tensor(_write(tmp_path, "q.json", json.dumps(obj)))
     assert d["d26"] == -4.62 and tensym.check_tensor(d, group="32").passes
 
