@@ -5,8 +5,30 @@ Subcommands print tensym results in the format asked for with ``--format``
 complete document).  ``--output FILE`` (``-o``) writes to a file instead of
 standard output: the file is written whole or not at all (a temporary file in
 the same folder, renamed when complete), and an existing file is replaced only
-with ``--force``.  Bad input ends with exit status 2 and one line on standard
-error that says what was wrong and what is accepted.
+with ``--force``.
+
+Exit status
+-----------
+0
+    Done; for ``check``, the data are consistent with the group.
+2
+    Bad input or usage (also a file that cannot be read or written, a number
+    out of range, input too large or too deeply nested, a numerical failure
+    on extreme data): one line on standard error that says what was wrong and
+    what is accepted, never a traceback.  Long inputs are cut to 40
+    characters and '...' in messages.
+3
+    ``check`` found the data inconsistent with the group, or ``identify``
+    found no class within the tolerance; the report is printed as usual, so
+    that scripts can act on the status (``tensym check c.csv m-3m || ...``).
+    ``frame`` has no verdict: it always reports the best rotation and its
+    residual.
+70
+    Internal error (an exception tensym did not expect, i.e. a bug): one line
+    with the exception type and message and a request to report it; set the
+    environment variable ``TENSYM_TRACEBACK=1`` to see the traceback.
+130
+    Interrupted (Ctrl-C).
 
 Run ``tensym --help`` or ``tensym COMMAND --help`` for the details and examples.
 
@@ -32,7 +54,8 @@ import sys
 
 from tensym.errors import TensymError
 
-__all__ = ["main", "build_parser", "TOUR_GROUPS", "TOUR_PROPERTIES"]
+__all__ = ["main", "build_parser", "TOUR_GROUPS", "TOUR_PROPERTIES", "EXIT_OK", "EXIT_BAD_INPUT",
+           "EXIT_INCONSISTENT", "EXIT_INTERNAL", "EXIT_INTERRUPTED", "MAX_UP_TO"]
 
 #: Groups of ``tensym tour``: a poled ceramic, the quartz class, the lithium
 #: niobate class, a tetragonal perovskite class and a cubic piezoelectric class.
@@ -41,6 +64,23 @@ TOUR_GROUPS = ("6mm", "32", "3m", "4mm", "-43m")
 TOUR_PROPERTIES = ("elastic_stiffness", "piezoelectric_d")
 
 _FORMATS = ("text", "latex", "markdown", "json")
+
+#: Largest ``--up-to`` weight of ``characters`` and ``correlate`` for continuous groups
+#: (101 irreps of O(3) up to l = 50 are already a long table; a larger weight is refused).
+MAX_UP_TO = 50
+_DEFAULT_UP_TO = 4
+
+
+def _up_to(text):
+    """argparse type of --up-to: a whole number from 0 to MAX_UP_TO."""
+    try:
+        n = int(text.strip())
+    except ValueError:
+        raise argparse.ArgumentTypeError(f"must be a whole number from 0 to {MAX_UP_TO}, got {_cut(text)!r}") from None
+    if not 0 <= n <= MAX_UP_TO:
+        raise argparse.ArgumentTypeError(f"must be from 0 to {MAX_UP_TO} (weights of the irreps shown), got {n}"
+                                         if abs(n) < 10**12 else f"must be from 0 to {MAX_UP_TO}, got {_cut(text)}")
+    return n
 
 _MAIN_HELP = """\
 Exact symmetry algebra of crystal property tensors: reduced forms in any point
@@ -54,7 +94,14 @@ examples:
   tensym groups --which settings
   tensym form 6mm piezoelectric_d elastic_stiffness
   tensym form 4/m --rank 2 --sym=-ji --axial
-  tensym form 32 elastic_compliance --format latex --standalone > s32.tex
+  tensym form 32 elastic_compliance --format latex --standalone -o s32.tex
+
+exit status:
+  0    done (check: the data are consistent with the group)
+  2    bad input or usage: one line on stderr says what and what is accepted
+  3    check: the data are inconsistent; identify: no class fits (the report is printed)
+  70   internal error: one line naming it; please report it (TENSYM_TRACEBACK=1 shows the traceback)
+  130  interrupted
 """
 
 
@@ -78,7 +125,8 @@ class _Parser(argparse.ArgumentParser):
         return super().parse_known_args(args, namespace)
 
     def error(self, message):
-        self.exit(2, f"{self.prog}: {message} (see '{self.prog} --help')\n")
+        _say(self.prog, f"{message} (see '{self.prog} --help')")
+        self.exit(2)
 
 
 class _MainParser(_Parser):
@@ -297,8 +345,8 @@ def _add_capability_commands(sub, raw):
         p.add_argument("group", metavar="GROUP", help="point-group symbol")
         p.add_argument("--real", action="store_true",
                        help="combine complex-conjugate pairs into their real two-dimensional forms")
-        p.add_argument("--up-to", type=int, default=4, metavar="N",
-                       help="continuous groups: show irreps up to this weight (default 4)")
+        p.add_argument("--up-to", type=_up_to, default=None, metavar="N",
+                       help=f"continuous groups: show irreps up to this weight, 0 to {MAX_UP_TO} (default 4)")
         _add_format(p)
         p.set_defaults(handler=_cmd_characters)
     if hasattr(tensym, "decompose"):
@@ -333,8 +381,8 @@ def _add_capability_commands(sub, raw):
             epilog="examples:\n  tensym correlate m-3m 4/mmm\n  tensym correlate O(3) -3m --up-to 3\n")
         p.add_argument("group", metavar="GROUP", help="the group")
         p.add_argument("subgroup", metavar="SUBGROUP", help="a subgroup (symbol)")
-        p.add_argument("--up-to", type=int, default=4, metavar="N",
-                       help="continuous groups: irreps up to this weight (default 4)")
+        p.add_argument("--up-to", type=_up_to, default=None, metavar="N",
+                       help=f"continuous groups: irreps up to this weight, 0 to {MAX_UP_TO} (default 4)")
         _add_format(p)
         p.set_defaults(handler=_cmd_correlate)
     if hasattr(tensym, "check_tensor") and hasattr(tensym, "read_tensor"):
@@ -346,7 +394,9 @@ def _add_capability_commands(sub, raw):
                         "forbidden components, broken relations, residual and a verdict.\n" + data_note,
             epilog="examples:\n  tensym check stiffness.csv m-3m\n"
                    "  tensym check d.json 6mm --tol 0.05 --format markdown\n"
-                   "  tensym check c.csv 6/mmm --property elastic_stiffness --units GPa\n")
+                   "  tensym check c.csv 6/mmm --property elastic_stiffness --units GPa\n"
+                   "  tensym check c.csv m-3m -o report.md --format markdown || echo \"not cubic\"\n"
+                   "exit status: 0 consistent, 3 inconsistent (the report is printed either way), 2 bad input.\n")
         p.add_argument("file", metavar="FILE", help="data file (.csv or .json)")
         p.add_argument("group", metavar="GROUP", help="point-group symbol")
         _add_data_options(p)
@@ -363,7 +413,9 @@ def _add_capability_commands(sub, raw):
             formatter_class=raw,
             description="Search all rotations for the one that brings the data closest to the symmetric\n"
                         "form of the group in its standard setting.\n",
-            epilog="examples:\n  tensym frame stiffness.csv m-3m\n  tensym frame c.json 6/mmm --format json\n")
+            epilog="examples:\n  tensym frame stiffness.csv m-3m\n  tensym frame c.json 6/mmm --format json\n"
+                   "exit status: 0 with the best rotation and its residual (no verdict: judge the residual, or\n"
+                   "run 'tensym check' on the rotated data), 2 bad input.\n")
         p.add_argument("file", metavar="FILE", help="data file (.csv or .json)")
         p.add_argument("group", metavar="GROUP", help="point-group symbol")
         p.add_argument("--property", metavar="NAME", help="property of the data, if the file does not say")
@@ -375,7 +427,8 @@ def _add_capability_commands(sub, raw):
             "identify", help="highest symmetry a tensor data file shows, in any frame", formatter_class=raw,
             description="Try every symmetry class of the property, each in its best orientation, and list\n"
                         "those within the tolerance, highest symmetry first.\n",
-            epilog="examples:\n  tensym identify stiffness.csv\n  tensym identify eps.csv --tol 0.002\n")
+            epilog="examples:\n  tensym identify stiffness.csv\n  tensym identify eps.csv --tol 0.002\n"
+                   "exit status: 0 when a class fits within the tolerance, 3 when none does, 2 bad input.\n")
         p.add_argument("file", metavar="FILE", help="data file (.csv or .json)")
         p.add_argument("--property", metavar="NAME", help="property of the data, if the file does not say")
         p.add_argument("--units", metavar="UNITS", help="unit label of the data, if the file does not say")
@@ -416,7 +469,9 @@ def _cmd_characters(args):
     import tensym
 
     group = tensym.point_group(args.group.strip())
-    table = tensym.character_table(group, up_to=args.up_to) if group.is_continuous else tensym.character_table(group)
+    _finite_up_to(args, group)
+    table = (tensym.character_table(group, up_to=_DEFAULT_UP_TO if args.up_to is None else args.up_to)
+             if group.is_continuous else tensym.character_table(group))
     if args.real and not group.is_continuous:
         from tensym.output.results import _RealView
 
@@ -464,7 +519,16 @@ def _cmd_split(args):
 def _cmd_correlate(args):
     import tensym
 
-    return _emit([tensym.correlate(args.group.strip(), args.subgroup.strip(), up_to=args.up_to)], args)
+    group = tensym.point_group(args.group.strip())
+    _finite_up_to(args, group)
+    up_to = _DEFAULT_UP_TO if args.up_to is None else args.up_to
+    return _emit([tensym.correlate(group, args.subgroup.strip(), up_to=up_to)], args)
+
+
+def _finite_up_to(args, group):
+    if args.up_to is not None and not group.is_continuous:
+        raise _UsageError(f"--up-to goes with a continuous group (such as SO(3), O(3), Cinfv, Dinfh); "
+                          f"{_cut(args.group.strip())} is finite and shows all its irreps")
 
 
 def _read(args):
@@ -479,6 +543,8 @@ def _cmd_check(args):
     data = _read(args)
     report = tensym.check_tensor(data, group=tensym.point_group(args.group.strip()), tol=args.tol,
                                  tol_kind=args.tol_kind, alpha=args.alpha)
+    if not report.passes:
+        args._status = EXIT_INCONSISTENT
     return _emit([report], args)
 
 
@@ -493,7 +559,10 @@ def _cmd_identify(args):
     import tensym
 
     data = _read(args)
-    return _emit([tensym.find_symmetry(data, tol=args.tol)], args)
+    found = tensym.find_symmetry(data, tol=args.tol)
+    if found.best is None:
+        args._status = EXIT_INCONSISTENT
+    return _emit([found], args)
 
 
 def _cut(text, n=40):
@@ -531,6 +600,49 @@ def _protect_dashes(argv):
     return out
 
 
+#: Exit statuses of the command line (see the module notes).
+EXIT_OK, EXIT_BAD_INPUT, EXIT_INCONSISTENT, EXIT_INTERNAL, EXIT_INTERRUPTED = 0, 2, 3, 70, 130
+
+#: Known failures of bad or extreme input that escape as builtin exceptions: (class, what the user is told).
+_INPUT_FAILURES = (
+    (UnicodeError, "text that is not valid in its encoding"),
+    (OverflowError, "a number too large to compute with"),
+    (RecursionError, "input nested too deeply or too large to process"),
+    (MemoryError, "not enough memory for this request (try a smaller rank, degree or --up-to)"),
+)
+
+
+def _input_failure(exc):
+    """The user's explanation of a known builtin failure of bad input, or None."""
+    for cls, what in _INPUT_FAILURES:
+        if isinstance(exc, cls):
+            return what
+    if type(exc).__name__ == "LinAlgError":  # numpy.linalg.LinAlgError, without importing numpy here
+        return "a numerical failure (the data may be extreme in magnitude or ill-conditioned)"
+    return None
+
+
+_LONG_WORD = re.compile(r"\S{61,}")  # the library cuts echoed input to 40 + '...'; this is the net
+
+
+def _tidy(message):
+    """One line; a word (a run without blanks) over 60 characters cut to 40 characters and '...'."""
+    text = " ".join(str(message).split("\n")).strip()
+    text = _LONG_WORD.sub(lambda m: m.group(0)[:40] + "...", text)
+    return text if len(text) <= 600 else text[:600] + "..."
+
+
+def _say(prog, message):
+    """Print ``prog: message`` as one line on stderr, whatever the terminal's encoding."""
+    line = f"{prog}: {_tidy(message)}\n"
+    try:
+        sys.stderr.write(line)
+    except UnicodeEncodeError:
+        enc = getattr(sys.stderr, "encoding", None) or "ascii"
+        sys.stderr.write(line.encode(enc, "backslashreplace").decode(enc))
+    sys.stderr.flush()
+
+
 def main(argv=None):
     """Run the ``tensym`` command line; return the exit status.
 
@@ -542,7 +654,11 @@ def main(argv=None):
     Returns
     -------
     int
-        0 on success; 2 on bad input (one line on stderr, no traceback).
+        0 on success; 2 on bad input (one line on stderr, no traceback);
+        3 when ``tensym check`` finds the data inconsistent with the group
+        (the report is printed as usual); 70 for an internal error (one line
+        naming the exception, asking for a report; ``TENSYM_TRACEBACK=1``
+        prints the traceback); 130 when interrupted.
 
     Examples
     --------
@@ -550,57 +666,80 @@ def main(argv=None):
     2
     """
     argv = list(sys.argv[1:] if argv is None else argv)
+    try:
+        return _main(argv)
+    except KeyboardInterrupt:
+        _say("tensym", "interrupted")
+        return EXIT_INTERRUPTED
+
+
+def _main(argv):
     parser = build_parser()
     if not argv:
         parser.print_help()
-        return 0
+        return EXIT_OK
     try:
         args = parser.parse_args(_protect_dashes(argv))
     except SystemExit as exc:  # argparse: --help (0) or a usage error (2)
         return int(exc.code or 0)
     if args.command is None:
         parser.print_help()
-        return 0
+        return EXIT_OK
     prog = f"tensym {args.command}"
     out_path = getattr(args, "output", None)
     if out_path == "-":
         out_path = None
     if getattr(args, "force", False) and out_path is None:
-        print(f"{prog}: --force goes with --output FILE (see '{prog} --help')", file=sys.stderr)
-        return 2
+        _say(prog, f"--force goes with --output FILE (see '{prog} --help')")
+        return EXIT_BAD_INPUT
     if out_path is not None and not args.force and os.path.lexists(out_path):
-        print(f"{prog}: {_cut_path(out_path)} exists already; add --force to replace it", file=sys.stderr)
-        return 2
+        _say(prog, f"{_cut_path(out_path)} exists already; add --force to replace it")
+        return EXIT_BAD_INPUT
     try:
         text = args.handler(args)
     except TensymError as exc:
-        print(f"{prog}: {exc}", file=sys.stderr)
-        return 2
+        _say(prog, exc)
+        return EXIT_BAD_INPUT
     except _UsageError as exc:
-        print(f"{prog}: {exc} (see '{prog} --help')", file=sys.stderr)
-        return 2
+        _say(prog, f"{exc} (see '{prog} --help')")
+        return EXIT_BAD_INPUT
     except OSError as exc:
-        print(f"{prog}: {exc.strerror or exc}: {exc.filename}" if exc.filename else f"{prog}: {exc}",
-              file=sys.stderr)
-        return 2
+        _say(prog, f"{exc.strerror or exc}: {_cut_path(exc.filename)}" if exc.filename else exc)
+        return EXIT_BAD_INPUT
+    except Exception as exc:  # noqa: BLE001 - sorted below: known input failures, or a bug to report
+        what = _input_failure(exc)
+        if what is not None:
+            _say(prog, f"{what} ({type(exc).__name__}: {exc})")
+            return EXIT_BAD_INPUT
+        if os.environ.get("TENSYM_TRACEBACK"):
+            raise
+        _say(prog, f"internal error, {type(exc).__name__}: {exc}; this is a bug in tensym: please report it "
+                   "with the command line (TENSYM_TRACEBACK=1 shows the traceback)")
+        return EXIT_INTERNAL
+    status = getattr(args, "_status", EXIT_OK)
     if out_path is not None:
         from tensym.data.io import write_text_atomic
 
         try:
             write_text_atomic(out_path, text + "\n", overwrite=args.force)
         except TensymError:  # the file appeared while the command ran
-            print(f"{prog}: {_cut_path(out_path)} exists already; add --force to replace it", file=sys.stderr)
-            return 2
+            _say(prog, f"{_cut_path(out_path)} exists already; add --force to replace it")
+            return EXIT_BAD_INPUT
         except OSError as exc:
-            print(f"{prog}: cannot write {_cut_path(out_path)}: {exc.strerror or exc}", file=sys.stderr)
-            return 2
-        return 0
+            _say(prog, f"cannot write {_cut_path(out_path)}: {exc.strerror or exc}")
+            return EXIT_BAD_INPUT
+        return status
     try:
         sys.stdout.write(text + "\n")
         sys.stdout.flush()
     except BrokenPipeError:  # e.g. piped into head
-        return 0
-    return 0
+        return status
+    except UnicodeEncodeError as exc:
+        bad = exc.object[exc.start:exc.end]
+        _say(prog, f"standard output cannot show {bad!r} (encoding {exc.encoding}); set PYTHONIOENCODING=utf-8 "
+                   "or write to a file with --output FILE")
+        return EXIT_BAD_INPUT
+    return status
 
 
 if __name__ == "__main__":  # pragma: no cover

@@ -299,7 +299,7 @@ def test_check_a_data_file(capsys, tmp_path):
 def test_check_a_turned_tensor_fails_and_frame_finds_the_rotation(capsys, tmp_path):
     path = _cubic(tmp_path, turned=True)
     code, out, _ = run(capsys, "check", path, "m-3m")
-    assert code == 0 and out.splitlines()[0].endswith("inconsistent")
+    assert code == 3 and out.splitlines()[0].endswith("inconsistent")  # EXIT_INCONSISTENT
     code, out, _ = run(capsys, "frame", path, "m-3m", "--format", "json")
     assert code == 0
     rec = json.loads(out)

@@ -124,6 +124,12 @@ def _cut(text, n=40):
     return text if len(text) <= n else text[:n] + "..."
 
 
+def _cut_path(path, n=40):
+    """A path for messages: a long one keeps its last ``n`` characters (the file name)."""
+    path = str(path)
+    return path if len(path) <= n else "..." + path[-n:]
+
+
 def _fmt(v):
     return repr(float(v)) if float(v) != int(v) or abs(v) >= 1e15 else str(int(v))
 
@@ -412,9 +418,11 @@ def read_tensor(path, what=None, *, format="auto", units=None, symmetry_tol=1e-8
         with open(path, "rb") as fh:
             raw = fh.read()
     except OSError as exc:
-        raise DataError(f"cannot read {_cut(os.fspath(path))!r}: {exc.strerror or exc}") from exc
+        raise DataError(f"cannot read {_cut_path(os.fspath(path))!r}: {exc.strerror or exc}") from exc
     name = _cut(os.path.basename(os.fspath(path)))
     text = _decode(raw, name)
+    if not text.strip():
+        raise DataError(f"{name} is empty")
     if fmt == "json":
         obj = _parse_json(text, name)
         return _from_json(obj, what, units, symmetry_tol, name)
@@ -584,7 +592,8 @@ def _from_csv(text, what, units, tol, name):
             blocks[-1].append((lineno, _numbers(line, lineno, name)))
     prop_arg = _merge(meta.get("property"), what, "property", name)
     if prop_arg is None:
-        raise DataError(f"{name} does not say which property it holds; pass what=... or add '# property: ...'")
+        raise DataError(f"{name} does not say which property it holds; pass what=... (--property NAME on the "
+                        "command line) or add a line '# property: NAME'")
     prop = _file_property(prop_arg, what, name)
     u = _merge(meta.get("units"), units, "units", name)
     source = meta.get("source", name)
@@ -751,7 +760,8 @@ def _from_json(obj, what, units, tol, name):
         raise DataError(f"{name}: format {_cut(tag)!r} is not {FORMAT_TAG!r}")
     prop_arg = _merge(obj.get("property"), what, "property", name)
     if prop_arg is None:
-        raise DataError(f"{name} does not say which property it holds; pass what=... or add \"property\"")
+        raise DataError(f"{name} does not say which property it holds; pass what=... (--property NAME on the "
+                        "command line) or add \"property\"")
     prop = _file_property(prop_arg, what, name)
     lay = _layout(prop)
     u = _merge(obj.get("units"), units, "units", name)
