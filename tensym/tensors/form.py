@@ -170,7 +170,21 @@ def _label_text(lab):
     return "".join(str(x) for x in lab)
 
 
-@dataclass(frozen=True)
+def _pretty_text(text, printer):
+    """A prettyForm of plain text: left-aligned, long lines wrapped to the printer's width (80)."""
+    import textwrap
+
+    from sympy.printing.pretty.stringpict import prettyForm
+
+    cols = printer._settings.get("num_columns") or 80
+    lines = []
+    for line in text.splitlines():
+        lines.extend(textwrap.wrap(line, cols - 1, subsequent_indent="    ") if len(line) >= cols else [line])
+    width = max((len(x) for x in lines), default=0)
+    return prettyForm("\n".join(x.ljust(width) for x in lines))
+
+
+@dataclass(frozen=True, eq=False)
 class TensorForm:
     """The symmetry-reduced form of a property tensor in a point group.
 
@@ -429,6 +443,8 @@ class TensorForm:
         DataError
             For a missing, unknown or non-finite value.
         """
+        if isinstance(values, np.ndarray) and values.ndim == 2:
+            return self._evaluate_batch(values, full)
         x = self._numeric_values(values)
         tensor = np.tensordot(x, self.numeric_basis(), axes=1) if self.n_independent else np.zeros((3,) * self.spec.rank)
         if full:
@@ -436,6 +452,64 @@ class TensorForm:
         from tensym.tensors.voigt import to_voigt
 
         return to_voigt(tensor, self.property)
+
+    def _evaluate_batch(self, values, full):
+        """Vectorised evaluate: values (N, n_independent) -> (N, Voigt shape) or (N, 3, ..., 3)."""
+        if values.shape[1] != self.n_independent:
+            raise DataError(f"a batch of constants has shape (N, {self.n_independent}) for "
+                            f"{', '.join(map(str, self.symbols))}, got {values.shape}")
+        if np.iscomplexobj(values):
+            raise DataError("the constants are complex; give real values (the imaginary part would be lost)")
+        x = np.asarray(values, dtype=np.float64)
+        if not np.all(np.isfinite(x)):
+            bad = np.argwhere(~np.isfinite(x))[0]
+            raise DataError(f"value of {self.symbols[bad[1]]} in row {bad[0]} is not finite: {x[tuple(bad)]}")
+        from tensym.tensors.voigt import to_voigt, voigt_shape
+
+        if full:
+            basis = self.numeric_basis()
+            return np.tensordot(x, basis, axes=1) if self.n_independent else np.zeros((len(x),) + basis.shape[1:])
+        if "voigt_basis" not in self._cache:
+            self._cache["voigt_basis"] = to_voigt(self.numeric_basis(), self.property)
+        vb = self._cache["voigt_basis"]
+        if not self.n_independent:
+            return np.zeros((len(x),) + voigt_shape(self.property))
+        return (x @ vb.reshape(len(vb), -1)).reshape((len(x),) + vb.shape[1:])
+
+    # --- equality that survives pickling ----------------------------------------
+    def _identity(self):
+        names = getattr(self.group, "names", None)
+        rot = getattr(names, "rotation", None)
+        return (self.property, group_key(self.group), getattr(names, "setting_symbol", ""),
+                None if rot is None else tuple(sp.ImmutableMatrix(rot)), self.symbols, self._coeffs, self._labels)
+
+    def __eq__(self, other):
+        if not isinstance(other, TensorForm):
+            return NotImplemented
+        return self._identity() == other._identity()
+
+    def __hash__(self):
+        return hash(self._identity())
+
+    def __getstate__(self):
+        state = dict(self.__dict__)
+        state["_cache"] = {}  # caches are rebuilt on use
+        return state
+
+    def __setstate__(self, state):
+        self.__dict__.update(state)
+
+    # --- sympy printer hooks -----------------------------------------------------
+    def _latex(self, printer):
+        """``sympy.latex(form)`` gives the same LaTeX as :meth:`latex`."""
+        return self.latex()
+
+    def _sympystr(self, printer):
+        return str(self)
+
+    def _pretty(self, printer):
+        """``sympy.pprint(form)``: the text table, left-aligned."""
+        return _pretty_text(str(self), printer)
 
     # --- display -------------------------------------------------------------
     def latex(self, *, standalone=False):
@@ -547,6 +621,15 @@ class RotatedForm:
             if val != 0:
                 lines.append(f"  {letter}'{''.join(str(i + 1) for i in idx)} = {sp.sstr(val)}")
         return "\n".join(lines)
+
+    def _latex(self, printer):
+        return self.latex()
+
+    def _sympystr(self, printer):
+        return str(self)
+
+    def _pretty(self, printer):
+        return _pretty_text(str(self), printer)
 
     def __repr__(self):
         return f"<RotatedForm {self.form.property.name}: {self.form.n_independent} constants, R = {self.rotation.tolist()}>"
