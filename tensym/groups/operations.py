@@ -104,22 +104,38 @@ def _orthogonal(m):
     return is_orthogonal(m)
 
 
-def proper_order(p):
-    """Order of a proper rotation given as a float (3, 3) array; 0 when above ORDER_SEARCH_LIMIT.
+def proper_angle(p):
+    """Rotation angle in [0, pi] of a proper rotation given as a float (3, 3) array.
 
-    The angle t = acos((tr p - 1)/2) is 2 pi k/n with k, n coprime; n is the order.
+    ``atan2(|w| / 2, (tr p - 1) / 2)`` with w the axial vector of ``p - p^T``
+    (``|w| = 2 sin t``).  Unlike ``acos((tr p - 1)/2)`` this is well conditioned
+    at every angle: near a half turn acos turns a trace error of 1e-16 (the
+    rounding of a few float products) into an angle error of 1e-8.
     """
+    w = (p[2, 1] - p[1, 2], p[0, 2] - p[2, 0], p[1, 0] - p[0, 1])
+    return math.atan2(math.sqrt(w[0] ** 2 + w[1] ** 2 + w[2] ** 2) / 2.0, (float(np.trace(p)) - 1.0) / 2.0)
+
+
+def _order_and_power(p):
+    """(n, k) with angle 2 pi k / n, k and n coprime, 1 <= k <= n/2; (1, 0) for 1, (0, 0) when n is too large."""
     if np.allclose(p, np.eye(3), atol=1e-9):
-        return 1
-    c = min(1.0, max(-1.0, (float(np.trace(p)) - 1.0) / 2.0))
-    ang = math.acos(c)
+        return 1, 0
+    ang = proper_angle(p)
     for k in range(1, ORDER_SEARCH_LIMIT + 1):
         n = 2 * math.pi * k / ang
         if n > ORDER_SEARCH_LIMIT + 0.5:
             break
         if abs(n - round(n)) < 1e-7:
-            return int(round(n))
-    return 0
+            return int(round(n)), k
+    return 0, 0
+
+
+def proper_order(p):
+    """Order of a proper rotation given as a float (3, 3) array; 0 when above ORDER_SEARCH_LIMIT.
+
+    The angle t (see :func:`proper_angle`) is 2 pi k/n with k, n coprime; n is the order.
+    """
+    return _order_and_power(p)[0]
 
 
 @dataclass(frozen=True, eq=False)
@@ -371,7 +387,17 @@ class Operation:
 
     @property
     def symbol(self):
-        """Short symbol in the crystallographic style: 1, 2, 3+, 4-, -1, m, -3+, -6-; primed with '."""
+        """Short symbol in the crystallographic style: 1, 2, 3+, 4-, -1, m, -3+, -6-; primed with '.
+
+        A rotation by 2 pi k/n with k > 1 (k and n coprime, k <= n/2) is the power
+        ``n^k+`` or ``n^k-`` (the icosahedral 5-folds by 144 degrees: ``5^2+``);
+        a rotation of order above ORDER_SEARCH_LIMIT is named by its angle, ``R(t)``.
+
+        Examples
+        --------
+        >>> Operation.from_triplet("x-y,x,z", basis="hexagonal").symbol
+        '6+'
+        """
         prime = "'" if self.time_reversal else ""
         kind = self.kind
         if kind == "identity":
@@ -380,14 +406,11 @@ class Operation:
             return "-1" + prime
         if kind == "mirror":
             return "m" + prime
-        r = self.det * self._num
-        ang = math.acos(min(1.0, max(-1.0, (float(np.trace(r)) - 1.0) / 2.0)))
-        n = round(2 * math.pi / ang) if ang > 1e-9 else 0
-        exact_n = n > 0 and abs(2 * math.pi / n - ang) < 1e-9
-        if not exact_n:
+        n, k = _order_and_power(self.det * self._num)
+        if n == 0:  # no order up to ORDER_SEARCH_LIMIT: name it by its angle
             base = f"R({sp.nsimplify(self.angle)})"
         else:
-            base = str(n)
+            base = str(n) if k == 1 else f"{n}^{k}"  # n^k: the k-th power of n+, angle 2 pi k/n
         s = "" if n == 2 else ("+" if self.sense > 0 else "-")
         if kind == "rotoinversion":
             # -n+ is inversion after the rotation n+ (ITA convention): order and sense
@@ -416,9 +439,17 @@ class Operation:
             return f"{sym}: mirror, normal {axs}{tail}"
         sense = {1: ", counter-clockwise", -1: ", clockwise", 0: ""}[self.sense]
         num = sym.lstrip("-").rstrip("+-'")
+        if num.startswith("R("):  # no finite order: the angle is in the symbol
+            return f"{sym}: rotation{'oinversion' if kind != 'rotation' else ''}{sense}, axis {axs}{tail}"
+        if "^" in num:  # a power n^k: say the angle
+            n, k = (int(x) for x in num.split("^"))
+            num = f"{n}-fold"
+            by = f" by {sp.sstr(sp.Rational(360 * k, n))} degrees"
+        else:
+            num, by = f"{num}-fold", ""
         if kind == "rotation":
-            return f"{sym}: {num}-fold rotation{sense}, axis {axs}{tail}"
-        return f"{sym}: {num}-fold rotoinversion{sense}, axis {axs}{tail}"
+            return f"{sym}: {num} rotation{by}{sense}, axis {axs}{tail}"
+        return f"{sym}: {num} rotoinversion{by}{sense}, axis {axs}{tail}"
 
     def triplet(self, basis="cartesian"):
         """The coordinate triplet, e.g. ``-y,x-y,z`` (basis 'cartesian' or 'hexagonal').

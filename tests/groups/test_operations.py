@@ -130,3 +130,46 @@ def test_time_reversal_flag_in_triplets():
     op = Operation.from_triplet("-x,-y,z,-1")
     assert op.time_reversal and op.symbol == "2'" and op.triplet() == "-x,-y,z,-1"
     assert (op @ op).is_identity and not (op @ op).time_reversal
+
+
+# --- issue 9: the 2-fold about z of the hexagonal family was labelled R(pi) ------------
+def _all_catalog_operations():
+    for setting in point_groups(which="all"):
+        for op in catalog_group(setting).operations:
+            yield setting, op
+
+
+def test_issue_9_no_catalog_operation_is_labelled_by_its_angle():
+    # every operation of every catalog group has a rotation order n (1, 2, 3, 4, 6 or 5 for the
+    # icosahedral groups), so its symbol is n, n+/n- or a power n^k+/- (common practice)
+    bad = [(s, op.triplet(), op.symbol) for s, op in _all_catalog_operations() if "R(" in op.symbol]
+    assert bad == []
+
+
+@pytest.mark.parametrize("setting", ["6", "6/m", "622", "6mm", "6/mmm"])
+def test_issue_9_hexagonal_two_fold_about_z(setting):
+    g = catalog_group(setting)
+    two = next(op for op in g.operations if op.triplet() == "-x,-y,z")
+    assert two.symbol == "2"  # ITA Vol. A, P6 general position (4) 2 0,0,z (from memory)
+    assert two.describe() == "2: 2-fold rotation, axis [0, 0, 1]"
+
+
+def test_issue_9_root_cause_angle_of_a_half_turn_with_rounding_noise():
+    # the angle was acos((tr - 1)/2), which turns a trace error of 1e-16 at a half turn
+    # into an angle error of 1e-8; the symbol must not depend on noise of that size
+    op = Operation.from_triplet("-x,-y,z")
+    noisy = op.numeric + np.diag([-2.2e-16, -2.2e-16, 0.0])
+    object.__setattr__(op, "_num", noisy)
+    assert op.symbol == "2" and op.order == 2
+
+
+def test_icosahedral_five_fold_powers():
+    # Cotton 1990, I table: classes 12 C5 and 12 C5^2 (rotations by 72 and 144 degrees)
+    g = catalog_group("532")
+    symbols = {op.symbol for op in g.operations if op.order == 5}
+    assert symbols == {"5+", "5-", "5^2+", "5^2-"}
+    op = next(op for op in g.operations if op.symbol == "5^2+")
+    assert op.describe().startswith("5^2+: 5-fold rotation by 144 degrees, counter-clockwise, axis [")
+    ih = catalog_group("-5-3m")
+    assert {op.symbol for op in ih.operations if op.kind == "rotoinversion" and op.order == 10} == {
+        "-5+", "-5-", "-5^2+", "-5^2-"}
