@@ -46,10 +46,10 @@ def _clear():
     form_mod._solve_cached.cache_clear()
 
 
-def time_exact(props, groups, repeat=3):
+def time_exact(props, groups, repeat=3, clear=None):
     best = np.inf
     for _ in range(repeat):
-        _clear()
+        (clear or _clear)()
         t = time.perf_counter()
         for p in props:
             for g in groups:
@@ -80,15 +80,7 @@ def time_frames(props, groups):
         solver._FRAMES.clear()
 
     def run(gs):
-        best = np.inf
-        for _ in range(2):
-            clear()
-            t = time.perf_counter()
-            for g in gs:
-                for p in props:
-                    tensor_form(p, g)
-            best = min(best, time.perf_counter() - t)
-        return best
+        return time_exact(props, gs, repeat=2, clear=clear)
 
     std = run(groups)
     out = []

@@ -49,7 +49,19 @@ _ONE = sp.Integer(1)
 _COMPARE_KEY = cmp_to_key(sp.Basic.compare)
 
 
-class SqrtField:
+class _Field:
+    """Shared arithmetic of the fields: ``degree`` and structure constants ``terms``."""
+
+    def mul(self, x, y):
+        """Product of two coefficient vectors (lists of ints)."""
+        out = [0] * self.degree
+        for a, b, c, t in self.terms:
+            if x[a] and y[b]:
+                out[c] += t * x[a] * y[b]
+        return out
+
+
+class SqrtField(_Field):
     """Q(sqrt s for s in radicands): basis sqrt(r) for r in the group the radicands generate.
 
     The basis runs over the square-free numbers r reachable as products of the
@@ -121,16 +133,8 @@ class SqrtField:
         rest = sorted((t for t in terms if not t.is_Rational), key=_COMPARE_KEY)
         return sp.Add._from_args(tuple(head + rest))
 
-    def mul(self, x, y):
-        """Product of two coefficient vectors (lists of ints)."""
-        out = [0] * self.degree
-        for a, b, c, t in self.terms:
-            if x[a] and y[b]:
-                out[c] += t * x[a] * y[b]
-        return out
 
-
-class PrimitiveField:
+class PrimitiveField(_Field):
     """Q(theta) with theta an algebraic integer (monic integer minimal polynomial).
 
     ``theta_expr`` is theta as a sympy expression; ``expressions`` gives each
@@ -201,13 +205,6 @@ class PrimitiveField:
     def to_sympy(self, ints, den):
         terms = [sp.Rational(int(c), int(den)) * p for c, p in zip(ints, self._powers) if c]
         return sp.expand(sp.Add(*terms)) if terms else sp.Integer(0)
-
-    def mul(self, x, y):
-        out = [0] * self.degree
-        for a, b, c, t in self.terms:
-            if x[a] and y[b]:
-                out[c] += t * x[a] * y[b]
-        return out
 
 
 def _sqfree_product(s, t):

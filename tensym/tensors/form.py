@@ -184,8 +184,21 @@ def _pretty_text(text, printer):
     return prettyForm("\n".join(x.ljust(width) for x in lines))
 
 
+class _SympyPrintable:
+    """sympy printer hooks: ``sympy.latex(x)`` is ``x.latex()``, ``sympy.pprint(x)`` the text, left-aligned."""
+
+    def _latex(self, printer):
+        return self.latex()
+
+    def _sympystr(self, printer):
+        return str(self)
+
+    def _pretty(self, printer):
+        return _pretty_text(str(self), printer)
+
+
 @dataclass(frozen=True, eq=False)
-class TensorForm:
+class TensorForm(_SympyPrintable):
     """The symmetry-reduced form of a property tensor in a point group.
 
     Attributes
@@ -499,18 +512,6 @@ class TensorForm:
     def __setstate__(self, state):
         self.__dict__.update(state)
 
-    # --- sympy printer hooks -----------------------------------------------------
-    def _latex(self, printer):
-        """``sympy.latex(form)`` gives the same LaTeX as :meth:`latex`."""
-        return self.latex()
-
-    def _sympystr(self, printer):
-        return str(self)
-
-    def _pretty(self, printer):
-        """``sympy.pprint(form)``: the text table, left-aligned."""
-        return _pretty_text(str(self), printer)
-
     # --- display -------------------------------------------------------------
     def latex(self, *, standalone=False):
         """LaTeX fragment (amsmath): the Voigt matrix (or tensor) and the relations."""
@@ -543,7 +544,7 @@ class TensorForm:
 
 
 @dataclass(frozen=True)
-class RotatedForm:
+class RotatedForm(_SympyPrintable):
     """A reduced form written in rotated axes (``TensorForm.rotated``).
 
     Attributes
@@ -621,15 +622,6 @@ class RotatedForm:
             if val != 0:
                 lines.append(f"  {letter}'{''.join(str(i + 1) for i in idx)} = {sp.sstr(val)}")
         return "\n".join(lines)
-
-    def _latex(self, printer):
-        return self.latex()
-
-    def _sympystr(self, printer):
-        return str(self)
-
-    def _pretty(self, printer):
-        return _pretty_text(str(self), printer)
 
     def __repr__(self):
         return f"<RotatedForm {self.form.property.name}: {self.form.n_independent} constants, R = {self.rotation.tolist()}>"
