@@ -156,6 +156,15 @@ def _magnetic_lookup():
     return magnetic_point_group
 
 
+def _magnetic_record_type():
+    """The record class of :func:`tensym.groups.magnetic.magnetic_point_groups`, when present."""
+    try:
+        from tensym.groups.magnetic import MagneticPointGroup
+    except ImportError:  # pragma: no cover - the magnetic module is optional here
+        return None
+    return MagneticPointGroup
+
+
 def point_group(symbol):
     """The named group for a symbol (cached: the same object on every call).
 
@@ -212,8 +221,10 @@ def as_group(group):
 
     Parameters
     ----------
-    group : PointGroup, ContinuousGroup or str
-        A group object is returned as it is; a string goes through :func:`point_group`.
+    group : PointGroup, ContinuousGroup, MagneticPointGroup or str
+        A group object is returned as it is; a string goes through :func:`point_group`;
+        a record of ``tensym.magnetic_point_groups()`` gives its group,
+        ``point_group(record.symbol)``.
 
     Returns
     -------
@@ -230,11 +241,17 @@ def as_group(group):
     --------
     >>> as_group("mm2") is as_group(as_group("mm2"))
     True
+    >>> from tensym.groups.magnetic import magnetic_class
+    >>> as_group(magnetic_class("m'm'm")).order
+    8
     """
     if isinstance(group, (PointGroup, ContinuousGroup)):
         return group
     if isinstance(group, str):
         return point_group(group)
+    record = _magnetic_record_type()
+    if record is not None and isinstance(group, record):
+        return point_group(group.symbol)
     raise InvalidGroupError(
         f"expected a point group or its symbol (e.g. '6mm', 'C6v'), got {type(group).__name__}; "
         "build a group from operations with tensym.group_from_generators"

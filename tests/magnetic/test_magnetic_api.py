@@ -50,3 +50,26 @@ def test_tensor_form_by_symbol():
     f = tensym.tensor_form("magnetization", "m'm'm")
     assert f.n_independent == 1 and str(f.symbols[0]) == "M3"
     assert tensym.tensor_form("piezomagnetic", "mmm1'").n_independent == 0
+
+
+# --- issue 9: every function taking a group also takes a record of magnetic_point_groups() ----------
+def _record(symbol):
+    return next(r for r in tensym.magnetic_point_groups() if r.symbol == symbol)
+
+
+@pytest.mark.parametrize("symbol", ["m'm'm", "-3'm'", "4'/m", "mmm1'", "6/mmm", "m'-3'm"])
+def test_issue_9_records_are_groups(symbol):
+    rec = _record(symbol)
+    g = tensym.as_group(rec)
+    assert g is tensym.point_group(symbol) and tensym.as_group(g) is g
+    assert g.order == rec.order and g.symbol == rec.symbol  # the record's own facts (Birss 1964 counts)
+    for prop in ("magnetoelectric", "elastic_stiffness"):
+        assert tensym.tensor_form(prop, rec).n_independent == tensym.tensor_form(prop, symbol).n_independent
+    assert str(tensym.decompose("magnetization", rec)) == str(tensym.decompose("magnetization", symbol))
+    assert tensym.character_table(rec).labels == tensym.character_table(symbol).labels
+    assert tensym.recognise(rec).hm == tensym.recognise(g).hm
+
+
+def test_issue_9_dzyaloshinskii_form_from_a_record():
+    # -3'm' (Cr2O3): alpha11 = alpha22 and alpha33 (Dzyaloshinskii 1959)
+    assert tensym.tensor_form("magnetoelectric", _record("-3'm'")).n_independent == 2
