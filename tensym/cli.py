@@ -5,7 +5,8 @@ Subcommands print tensym results in the format asked for with ``--format``
 complete document).  ``--output FILE`` (``-o``) writes to a file instead of
 standard output: the file is written whole or not at all (a temporary file in
 the same folder, renamed when complete), and an existing file is replaced only
-with ``--force``.
+with ``--force``.  Warnings raised while a command runs (a numeric overflow,
+say) are printed once each as one line, ``tensym COMMAND: warning: ...``.
 
 Exit status
 -----------
@@ -51,6 +52,7 @@ import argparse
 import os
 import re
 import sys
+import warnings
 
 from tensym.errors import TensymError
 
@@ -696,7 +698,17 @@ def _main(argv):
         _say(prog, f"{_cut_path(out_path)} exists already; add --force to replace it")
         return EXIT_BAD_INPUT
     try:
-        text = args.handler(args)
+        with warnings.catch_warnings():
+            seen = set()
+
+            def one_line_warning(message, category, *_args, **_kw):  # no source lines from deep inside
+                text = f"warning: {message} ({category.__name__})"
+                if text not in seen:
+                    seen.add(text)
+                    _say(prog, text)
+
+            warnings.showwarning = one_line_warning
+            text = args.handler(args)
     except TensymError as exc:
         _say(prog, exc)
         return EXIT_BAD_INPUT

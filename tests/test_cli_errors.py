@@ -272,3 +272,17 @@ def test_tidy_keeps_short_messages_and_makes_one_line():
     assert cli._tidy("got '" + "z" * 100 + "'") == "got '" + "z" * 39 + "..."
     quoted = "line 2: '2,5' has a decimal comma; decimal commas are not accepted: write ('1.5', not '1,5')"
     assert cli._tidy(quoted) == quoted
+
+
+def test_numpy_warning_during_a_command_is_one_line_not_a_source_dump(capsys, monkeypatch):
+    real = tensym.point_group
+
+    def noisy(*a, **k):
+        np.ones(2) @ np.array([1e308, 1e308])  # overflow: numpy warns with the source line
+        np.ones(2) @ np.array([1e308, 1e308])  # the same warning again is not repeated
+        return real(*a, **k)
+
+    monkeypatch.setattr(tensym, "point_group", noisy)
+    code, out, err = run(capsys, "characters", "4mm")
+    assert code == 0 and out
+    assert err.splitlines() == ["tensym characters: warning: overflow encountered in matmul (RuntimeWarning)"]
