@@ -8,6 +8,9 @@
   :func:`rotation_from_axes`, :func:`rotation_about`: user groups, their names,
   re-oriented copies and exact rotations.
 * :func:`settings_table`, :func:`point_groups`: the catalog.
+* :func:`space_group_point_group`, :func:`space_group_symbol`, :func:`space_group_symbols`:
+  space-group symbols and numbers (``'P6_3mc'``, ``186``) read as their point groups
+  (every function taking a group accepts them through :func:`as_group`).
 * :func:`magnetic_point_groups`, :func:`magnetic_class`, :func:`unitary_subgroup`,
   :func:`parent_group`: the 122 magnetic point groups (primed symbols such as
   ``"m'm'm"`` also go through :func:`point_group`).
@@ -40,6 +43,7 @@ from tensym.groups.recognition import (
     rotation_about,
     rotation_from_axes,
 )
+from tensym.groups.spacegroups import space_group_point_group, space_group_symbol, space_group_symbols
 from tensym.groups.symbols import as_group, point_group
 
 __all__ = [
@@ -66,4 +70,7 @@ __all__ = [
     "magnetic_point_groups",
     "parent_group",
     "unitary_subgroup",
+    "space_group_point_group",
+    "space_group_symbol",
+    "space_group_symbols",
 ]

@@ -66,6 +66,10 @@ class GroupNames:
         Symbol of the catalog setting the names refer to, e.g. ``'-4m2'``, ``'312'``,
         ``'112'`` (for the default setting of a class it is the class's own row,
         e.g. ``'321'`` for 32); empty when the group is not in the catalog.
+    space_group : str
+        The space group the group was named by, e.g. ``'P6_3mc (no. 186)'`` or
+        ``'Pbnm (no. 62, setting cab)'`` (see :mod:`tensym.groups.spacegroups`);
+        empty otherwise.
     """
 
     hm: str = ""
@@ -76,6 +80,7 @@ class GroupNames:
     laue_class: str = ""
     rotation: object = None
     setting_symbol: str = ""
+    space_group: str = ""
 
 
 def _trusted(matrix, flag, num):

@@ -79,7 +79,7 @@ from tensym.exact.matrices import float_key
 from tensym.groups.catalog import SETTINGS, catalog_group, default_setting, point_groups
 from tensym.groups.finite import MAX_GROUP_ORDER, GroupNames, PointGroup
 from tensym.groups.operations import HEXAGONAL_BASIS, Operation, proper_order
-from tensym.groups.symbols import as_group, normalise_symbol, point_group
+from tensym.groups.symbols import _point_group, as_group, normalise_symbol
 
 __all__ = [
     "MagneticPointGroup",
@@ -603,7 +603,7 @@ def _unknown(symbol, reason):
 
 def _parent_of(stripped, symbol):
     try:
-        g = point_group(stripped)
+        g = _point_group(stripped, False)
     except UnknownGroupError:
         raise _unknown(symbol, f"{stripped!r} without its primes is not a point-group symbol") from None
     if not isinstance(g, PointGroup) or not g.setting_symbol or g.crystal_system == "icosahedral":
@@ -665,7 +665,7 @@ def magnetic_point_group(symbol):
         prefix = s[:-2] or "1"
         stripped = prefix.replace("'", "")
         try:
-            parent = point_group(stripped) if stripped else None
+            parent = _point_group(stripped, False) if stripped else None
         except UnknownGroupError:
             parent = None
         if isinstance(parent, PointGroup) and parent.setting_symbol:

@@ -18,7 +18,13 @@ Accepted spellings (see :func:`point_group`):
 * the continuous groups of :mod:`tensym.groups.continuous`: ``'SO(3)'``,
   ``'O(3)'``, ``'Cinf'``, ``'C∞v'``, ``'Dinfh'``, ``'inf/mm'``, ...;
 * magnetic symbols (a prime, ``"m'm'm"``, or Schoenflies ``'D2h(C2h)'``) go to
-  :mod:`tensym.groups.magnetic`.
+  :mod:`tensym.groups.magnetic`;
+* space-group symbols and numbers (``'P6_3mc'``, ``'Fd-3m'``, ``'P 2_1/n 2_1/m 2_1/a'``,
+  the int 186 or the string ``'186'``) name their point group in the setting the symbol
+  gives; see :mod:`tensym.groups.spacegroups` for the spellings and for the rule on
+  digit strings (a string that is a point-group symbol, such as ``'32'``, stays one).
+  A symbol that is both (``'C2'``, ``'C1'``) is read as the point-group symbol, which
+  names the same class.
 
 A class symbol names the default setting of its class (``'2'`` is ``'121'``,
 ``'32'`` is ``'321'``, ``'3m'`` is ``'3m1'``, ``'C2v'`` is ``'mm2'``).
@@ -33,12 +39,23 @@ True
 """
 
 import difflib
+import numbers
 import re
+
+import numpy as np
 
 from tensym.errors import InvalidGroupError, UnknownGroupError
 from tensym.groups.catalog import SETTINGS, catalog_group
 from tensym.groups.continuous import CONTINUOUS_SYMBOLS, ContinuousGroup, continuous_group
 from tensym.groups.finite import PointGroup
+from tensym.groups.spacegroups import (
+    _echo,
+    _lookup as _space_group_lookup,
+    _group as _space_group_from_parts,
+    looks_like_space_group,
+    nearest_space_groups,
+    space_group_point_group,
+)
 
 __all__ = ["point_group", "as_group", "normalise_symbol", "known_symbols"]
 
@@ -112,6 +129,7 @@ def _build_tables():
 
 
 _EXACT, _LOWER = _build_tables()
+_MAX_COMPARE = 200  # characters of an unknown symbol compared for the suggestions
 _CONT_NORMAL = {normalise_symbol(k).lower(): v for k, v in CONTINUOUS_SYMBOLS.items()}
 
 
@@ -136,15 +154,18 @@ def known_symbols():
 
 
 def _nearest(text, n=5):
+    """Nearest valid symbols: space-group symbols first when ``text`` is shaped like one."""
+    text = str(text)[:_MAX_COMPARE]
+    out = nearest_space_groups(text, n=n) if looks_like_space_group(text) else []
     cands = known_symbols()
     by_lower = {}
     for c in cands:
         by_lower.setdefault(normalise_symbol(c).lower(), c)
     key = normalise_symbol(text).lower()
     hits = difflib.get_close_matches(key, list(by_lower), n=n, cutoff=0.5)
-    if not hits:
+    if not hits and not out:
         hits = difflib.get_close_matches(key, list(by_lower), n=n, cutoff=0.0)
-    return [by_lower[h] for h in hits]
+    return (out + [by_lower[h] for h in hits])[:n]
 
 
 def _magnetic_lookup():
@@ -170,9 +191,10 @@ def point_group(symbol):
 
     Parameters
     ----------
-    symbol : str
-        Hermann-Mauguin (short, full or setting symbol), Schoenflies, or the
-        name of a continuous group; see the module docstring for the spellings.
+    symbol : str or int
+        Hermann-Mauguin (short, full or setting symbol), Schoenflies, the
+        name of a continuous group, or a space-group symbol or number (its
+        point group, with ``names.space_group`` set); see the module docstring.
 
     Returns
     -------
@@ -181,9 +203,11 @@ def point_group(symbol):
     Raises
     ------
     UnknownGroupError
-        If no group has that symbol; the message names the nearest valid ones.
+        If no group has that symbol (the message names the nearest valid ones, space-group
+        symbols when the text is shaped like one), for a space-group number outside 1..230,
+        or for the ambiguous digits '5', '7', '8', '9'.
     InvalidGroupError
-        If ``symbol`` is not a string.
+        If ``symbol`` is neither a string nor an integer.
 
     Examples
     --------
@@ -191,10 +215,20 @@ def point_group(symbol):
     ('3m1', '3m')
     >>> point_group("Dinfh").schoenflies
     'D∞h'
+    >>> point_group("P6_3mc").setting_symbol, point_group(186).names.space_group
+    ('6mm', 'P6_3mc (no. 186)')
     """
+    return _point_group(symbol, True)
+
+
+def _point_group(symbol, space_groups):
+    """:func:`point_group`; without ``space_groups`` only point-group symbols (for parents of magnetic symbols)."""
+    if space_groups and isinstance(symbol, numbers.Integral) and not isinstance(symbol, (bool, np.bool_)):
+        return space_group_point_group(int(symbol))
     if not isinstance(symbol, str):
         raise InvalidGroupError(
-            f"a group symbol must be a string such as '4/mmm' or 'D4h', got {type(symbol).__name__} {symbol!r}"
+            f"a group symbol must be a string such as '4/mmm' or 'D4h' (or a space-group number 1..230), "
+            f"got {type(symbol).__name__} {_echo(symbol)}"
         )
     key = normalise_symbol(symbol)
     magnetic = _magnetic_lookup()
@@ -207,12 +241,18 @@ def point_group(symbol):
     cont = CONTINUOUS_SYMBOLS.get(raw) or _CONT_NORMAL.get(key.lower())
     if cont is not None:
         return continuous_group(cont)
+    if space_groups and key.isdigit():
+        return space_group_point_group(key)  # a number that is no point-group symbol: a space group
+    found = _space_group_lookup(symbol) if space_groups else None
+    if found is not None:
+        return _space_group_from_parts(*found)
     if magnetic is not None and "(" in key and key.lower() not in ("so(3)", "o(3)"):
         return magnetic(symbol)
     near = ", ".join(repr(s) for s in _nearest(symbol))
+    what = "space-group or point-group" if looks_like_space_group(symbol) else "point-group"
     raise UnknownGroupError(
-        f"unknown point-group symbol {symbol!r}; nearest valid symbols: {near} "
-        "(tensym.point_groups() lists the catalog)"
+        f"unknown {what} symbol {_echo(symbol)}; nearest valid symbols: {near} "
+        "(tensym.point_groups() lists the catalog; a space group is given by its symbol or number 1..230)"
     )
 
 
@@ -221,8 +261,9 @@ def as_group(group):
 
     Parameters
     ----------
-    group : PointGroup, ContinuousGroup, MagneticPointGroup or str
-        A group object is returned as it is; a string goes through :func:`point_group`;
+    group : PointGroup, ContinuousGroup, MagneticPointGroup, str or int
+        A group object is returned as it is; a string (any symbol, space groups
+        included) or an int (a space-group number) goes through :func:`point_group`;
         a record of ``tensym.magnetic_point_groups()`` gives its group,
         ``point_group(record.symbol)``.
 
@@ -233,7 +274,8 @@ def as_group(group):
     Raises
     ------
     UnknownGroupError
-        For an unknown symbol (the message names the nearest valid ones).
+        For an unknown symbol (the message names the nearest valid ones) or a
+        space-group number outside 1..230.
     InvalidGroupError
         For any other type (use ``tensym.group_from_generators`` for operations).
 
@@ -247,7 +289,7 @@ def as_group(group):
     """
     if isinstance(group, (PointGroup, ContinuousGroup)):
         return group
-    if isinstance(group, str):
+    if isinstance(group, str) or (isinstance(group, numbers.Integral) and not isinstance(group, (bool, np.bool_))):
         return point_group(group)
     record = _magnetic_record_type()
     if record is not None and isinstance(group, record):

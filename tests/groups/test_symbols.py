@@ -77,11 +77,13 @@ def test_as_group():
     c = point_group("SO(3)")
     assert as_group(c) is c
     with pytest.raises(InvalidGroupError, match="group_from_generators"):
-        as_group(6)
+        as_group(6.0)
     with pytest.raises(TypeError):
         as_group(["-x,-y,z"])
     with pytest.raises(InvalidGroupError, match="must be a string"):
-        point_group(4)
+        point_group(4.5)
+    # an int is a space-group number (issue 9): 6 is Pm, class m (ITA Vol. A; from memory)
+    assert as_group(6).names.space_group == "Pm (no. 6)" and point_group(4).symbol == "2"
 
 
 def test_normalise_symbol():
