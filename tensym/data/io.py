@@ -218,7 +218,8 @@ def write_text_atomic(path, text, *, overwrite=True):
     ``path`` exists).  A failure at any point (disk full, permissions, an
     interrupted write) removes the temporary file and leaves ``path`` as it was.
     A replaced file keeps its permission bits; a new one gets the usual ones
-    (0666 less the umask).
+    (0666 less the umask).  A ``path`` that is a symbolic link stays a link:
+    the file it points to is the one replaced.
 
     Parameters
     ----------
@@ -251,6 +252,9 @@ def write_text_atomic(path, text, *, overwrite=True):
     if not isinstance(overwrite, bool):
         raise InvalidOptionError(f"overwrite must be True or False, got {_cut(repr(overwrite))}")
     target = os.fspath(path)
+    shown = target
+    if os.path.islink(target):  # write through a symbolic link: the link stays, its file is replaced
+        target = os.path.realpath(target)
     folder = os.path.dirname(os.path.abspath(target))
     base = os.path.basename(target)
     if not overwrite and os.path.lexists(target):
@@ -284,7 +288,7 @@ def write_text_atomic(path, text, *, overwrite=True):
         tmp = None
         _sync_folder(folder)
     except OSError as exc:
-        raise _retarget(exc, target) from exc
+        raise _retarget(exc, shown) from exc
     finally:
         if tmp is not None:
             try:

@@ -362,3 +362,14 @@ def test_partial_file_with_another_fault_reports_that_fault(tmp_path):
     text = PARTIAL_CSV.replace("# units: GPa", "# units: pC/N")
     with pytest.raises(DataError, match=r"^c.csv: .*pC/N"):
         tensym.read_tensor(_put(tmp_path, "c.csv", text))
+
+
+def test_overwrite_through_a_symbolic_link_keeps_the_link(tmp_path):
+    real = tmp_path / "runs" / "eps_v1.csv"
+    real.parent.mkdir()
+    real.write_text(EPS)
+    link = tmp_path / "eps.csv"
+    link.symlink_to(real)
+    tensym.write_tensor(tensym.tensor_data(np.eye(3) * 5.0, "dielectric_permittivity"), link)
+    assert link.is_symlink() and tensym.read_tensor(real).voigt[0, 0] == 5.0
+    assert sorted(os.listdir(real.parent)) == ["eps_v1.csv"]
