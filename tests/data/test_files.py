@@ -373,3 +373,17 @@ def test_overwrite_through_a_symbolic_link_keeps_the_link(tmp_path):
     tensym.write_tensor(tensym.tensor_data(np.eye(3) * 5.0, "dielectric_permittivity"), link)
     assert link.is_symlink() and tensym.read_tensor(real).voigt[0, 0] == 5.0
     assert sorted(os.listdir(real.parent)) == ["eps_v1.csv"]
+
+
+@pytest.mark.parametrize("name, text", [
+    ("d.csv", "# property: piezoelectric_d\ncomponent,value,uncertainty\nd11,1,0.1\n"),
+    ("p.json", json.dumps({"property": "pyroelectric", "values": {"p3": 1.0}, "uncertainty": {"p3": 0.1}})),
+])
+def test_partial_file_with_uncertainties_leaves_the_rest_unknown(tmp_path, name, text):
+    try:
+        d = tensym.read_tensor(_put(tmp_path, name, text))
+    except DataError as exc:  # where the data layer needs every component
+        assert "missing: " in str(exc) and "mark a zero component with 0" in str(exc)
+        return
+    given = ~np.isnan(d.components)
+    assert int(given.sum()) == 1 and np.isnan(d.sigma[~given]).all()
