@@ -41,6 +41,7 @@ import sympy as sp
 
 from tensym.errors import InvalidOptionError, UnknownGroupError
 from tensym.groups.finite import GroupNames, PointGroup
+from tensym.groups.messages import echo
 from tensym.groups.operations import Operation
 
 __all__ = ["Setting", "SETTINGS", "settings_table", "point_groups", "catalog_group"]
@@ -238,7 +239,7 @@ def settings_table(*, format="rows"):
             lines.append(f"| `{r.symbol}` | {r.hm} | {r.full_hm} | {r.schoenflies} | {r.crystal_system} | "
                          f"{r.laue_class} | {gens} | {r.setting}{mark} |")
         return "\n".join(lines) + "\n"
-    raise InvalidOptionError(f"format={format!r} is not one of {_FORMATS}")
+    raise InvalidOptionError(f"format={echo(format)} is not one of {_FORMATS}")
 
 
 def point_groups(*, which="crystallographic"):
@@ -277,7 +278,7 @@ def point_groups(*, which="crystallographic"):
         return _ICOSAHEDRAL
     if which == "all":
         return tuple(s.symbol for s in SETTINGS)
-    raise InvalidOptionError(f"which={which!r} is not one of {_WHICH}")
+    raise InvalidOptionError(f"which={echo(which)} is not one of {_WHICH}")
 
 
 def default_setting(class_symbol):
@@ -326,7 +327,7 @@ def catalog_group(setting_symbol):
         row = _BY_SYMBOL.get(setting_symbol)
         if row is None:
             raise UnknownGroupError(
-                f"{setting_symbol!r} is not a setting symbol of the catalog; "
+                f"{echo(setting_symbol)} is not a setting symbol of the catalog; "
                 f"valid ones: {', '.join(point_groups(which='all'))}"
             )
         gens = [_generator(t, row.basis) for t in row.generators]

@@ -29,6 +29,7 @@ import numpy as np
 import sympy as sp
 
 from tensym.errors import GroupClosureError, InvalidOperationError
+from tensym.groups.messages import echo
 from tensym.groups.operations import ORDER_SEARCH_LIMIT, Operation
 from tensym.groups.quadratic import mq_matmul as _mq_matmul, mq_matrix as _mq_matrix, mq_sympy as _mq_sympy
 
@@ -225,7 +226,7 @@ class PointGroup:
         gens = []
         for g in generators:
             if not isinstance(g, Operation):
-                raise InvalidOperationError(f"generator {g!r} is not an Operation")
+                raise InvalidOperationError(f"generator {echo(g)} is not an Operation")
             if g.order == 0:
                 raise GroupClosureError(
                     f"generator {g.triplet()} has infinite order: its rotation angle is not 360/n degrees "

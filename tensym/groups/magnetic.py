@@ -78,6 +78,7 @@ from tensym.errors import GroupClosureError, InvalidGroupError, InvalidOptionErr
 from tensym.exact.matrices import float_key
 from tensym.groups.catalog import SETTINGS, catalog_group, default_setting, point_groups
 from tensym.groups.finite import MAX_GROUP_ORDER, GroupNames, PointGroup
+from tensym.groups.messages import echo
 from tensym.groups.operations import HEXAGONAL_BASIS, Operation, proper_order
 from tensym.groups.symbols import _point_group, as_group, normalise_symbol
 
@@ -321,11 +322,11 @@ def _template(symbol, group):
         return hit
     positions = _tokenize(_clean(symbol))
     if positions is None:  # pragma: no cover - catalog symbols are readable
-        raise ValueError(f"cannot read the symbol {symbol!r}")
+        raise ValueError(f"cannot read the symbol {echo(symbol)}")
     dirs, words = _directions(group.crystal_system, len(positions))
     if dirs is None:
         raise UnknownGroupError(
-            f"the symbol {symbol!r} has {len(positions)} positions, which does not fit a "
+            f"the symbol {echo(symbol)} has {len(positions)} positions, which does not fit a "
             f"{group.crystal_system} group; write the parent as in tensym.point_groups()"
         )
     layout = []
@@ -338,7 +339,7 @@ def _template(symbol, group):
             idx = _ops_of(group, element, dirs[k])
             if not idx:
                 raise UnknownGroupError(
-                    f"the symbol {symbol!r} names an element {element} along {words[k]}, which the "
+                    f"the symbol {echo(symbol)} names an element {element} along {words[k]}, which the "
                     f"group {group.setting_symbol} does not have"
                 )
             elems.append((element, idx))
@@ -591,12 +592,12 @@ def _all_spellings():
 
 
 def _unknown(symbol, reason):
-    key = _clean(symbol)
+    key = _clean(symbol[:200])  # the suggestions compare at most 200 characters
     pool = _all_spellings()
     near = difflib.get_close_matches(key, pool, n=5, cutoff=0.5) or difflib.get_close_matches(key, pool, n=5,
                                                                                                 cutoff=0.0)
     return UnknownGroupError(
-        f"{symbol!r} names no magnetic point group: {reason}; nearest valid symbols: "
+        f"{echo(symbol)} names no magnetic point group: {reason}; nearest valid symbols: "
         f"{', '.join(near)} (tensym.magnetic_point_groups() lists all 122)"
     )
 
@@ -605,9 +606,9 @@ def _parent_of(stripped, symbol):
     try:
         g = _point_group(stripped, False)
     except UnknownGroupError:
-        raise _unknown(symbol, f"{stripped!r} without its primes is not a point-group symbol") from None
+        raise _unknown(symbol, f"{echo(stripped)} without its primes is not a point-group symbol") from None
     if not isinstance(g, PointGroup) or not g.setting_symbol or g.crystal_system == "icosahedral":
-        raise _unknown(symbol, f"magnetic symbols are read for the 32 crystallographic classes, not {stripped!r}")
+        raise _unknown(symbol, f"magnetic symbols are read for the 32 crystallographic classes, not {echo(stripped)}")
     return g
 
 
@@ -649,7 +650,7 @@ def magnetic_point_group(symbol):
     16
     """
     if not isinstance(symbol, str):
-        raise InvalidGroupError(f"a magnetic group symbol must be a string such as \"m'm'm\", got {symbol!r}")
+        raise InvalidGroupError(f"a magnetic group symbol must be a string such as \"m'm'm\", got {echo(symbol)}")
     s = _clean(symbol)
     if not s:
         raise _unknown(symbol, "the symbol is empty")
@@ -696,7 +697,7 @@ def magnetic_point_group(symbol):
         op = parent.operations[clash]
         valid = _suggestions(tpl, positions)
         raise UnknownGroupError(
-            f"{symbol!r} names no magnetic point group: its primes contradict each other (the named elements "
+            f"{echo(symbol)} names no magnetic point group: its primes contradict each other (the named elements "
             f"make {op.describe()} both primed and unprimed, so no index-2 subgroup of {parent.setting_symbol} is "
             f"left unprimed); valid primings of {parent.setting_symbol}: {', '.join(valid)}"
         )
@@ -754,7 +755,7 @@ def magnetic_point_groups(*, kind="all"):
     """
     allowed = ("all",) + MAGNETIC_KINDS
     if kind not in allowed:
-        raise InvalidOptionError(f"kind={kind!r} is not one of {allowed}")
+        raise InvalidOptionError(f"kind={echo(kind)} is not one of {allowed}")
     recs = _catalog().records
     return recs if kind == "all" else tuple(r for r in recs if r.kind == kind)
 

@@ -34,6 +34,7 @@ import sympy as sp
 
 from tensym.errors import InvalidOperationError
 from tensym.exact.matrices import exact_matrix, float_key, is_orthogonal, matmul, to_float
+from tensym.groups.messages import echo
 from tensym.groups.quadratic import is_orthogonal_mq, mq_entry, mq_matrix
 
 __all__ = ["Operation", "HEXAGONAL_BASIS", "ORDER_SEARCH_LIMIT"]
@@ -52,7 +53,7 @@ _TERM = re.compile(r"([+-]?)\s*([0-9/.]*)\s*\*?\s*([xyz])")
 def _parse_component(text, where):
     text = text.strip().replace(" ", "")
     if not text:
-        raise InvalidOperationError(f"empty component in triplet {where!r}")
+        raise InvalidOperationError(f"empty component in triplet {echo(where)}")
     row = [sp.Integer(0)] * 3
     pos = 0
     for m in _TERM.finditer(text):
@@ -60,7 +61,7 @@ def _parse_component(text, where):
             break
         sign, num, var = m.groups()
         if pos > 0 and not sign:
-            raise InvalidOperationError(f"missing + or - before {var!r} in triplet {where!r}")
+            raise InvalidOperationError(f"missing + or - before {echo(var)} in triplet {echo(where)}")
         coeff = sp.Rational(num) if num else sp.Integer(1)
         if sign == "-":
             coeff = -coeff
@@ -70,7 +71,7 @@ def _parse_component(text, where):
         row = _parse_algebraic(text)
         if row is None:
             raise InvalidOperationError(
-                f"cannot read {text!r} in triplet {where!r}: each component is a sum of "
+                f"cannot read {echo(text)} in triplet {echo(where)}: each component is a sum of "
                 "+/- x, y, z with exact factors such as 1/2 or sqrt(3)/2 (translations are not accepted)"
             )
     return row
@@ -94,6 +95,32 @@ def _parse_algebraic(text):
     if sp.expand(expr - sum(c * v for c, v in zip(row, _XYZ))) != 0:
         return None
     return row
+
+
+def _exact_entry(v):
+    """One exact real number of an operation matrix, or InvalidOperationError saying what is wrong."""
+    if isinstance(v, (bool, np.bool_, sp.logic.boolalg.BooleanAtom)):
+        raise InvalidOperationError(
+            f"matrix entry {echo(v)} is a boolean; give numbers (for a numpy bool array use .astype(int))"
+        )
+    try:
+        e = sp.sympify(v)
+    except (sp.SympifyError, TypeError, ValueError, SyntaxError) as exc:
+        raise InvalidOperationError(f"cannot read matrix entry {echo(v)} as a number") from exc
+    if isinstance(e, sp.logic.boolalg.Boolean):
+        raise InvalidOperationError(f"matrix entry {echo(v)} is a boolean; give numbers")
+    if not isinstance(e, sp.Expr):
+        raise InvalidOperationError(f"cannot read matrix entry {echo(v)} as a number")
+    if e.free_symbols:
+        names = ", ".join(sorted(str(x) for x in e.free_symbols))
+        raise InvalidOperationError(
+            f"matrix entry {echo(e)} is symbolic (free symbol {names}); an operation needs exact numbers"
+        )
+    if e.is_finite is False or e.has(sp.nan, sp.zoo):
+        raise InvalidOperationError(f"matrix entry {echo(e)} is not finite")
+    if e.is_real is False:
+        raise InvalidOperationError(f"matrix entry {echo(e)} is not real; operations are real orthogonal matrices")
+    return e
 
 
 def _orthogonal(m):
@@ -179,7 +206,7 @@ class Operation:
         try:
             arr = np.asarray(matrix, dtype=object)
         except Exception as exc:  # pragma: no cover - numpy accepts almost anything
-            raise InvalidOperationError(f"cannot read {matrix!r} as a 3x3 matrix") from exc
+            raise InvalidOperationError(f"cannot read {echo(matrix)} as a 3x3 matrix") from exc
         if arr.shape != (3, 3):
             raise InvalidOperationError(f"an operation matrix must be 3x3, got shape {arr.shape}")
         rows = []
@@ -191,17 +218,14 @@ class Operation:
                         v = int(v)
                     else:
                         raise InvalidOperationError(
-                            f"matrix entry {v!r} is a float; give exact entries "
+                            f"matrix entry {echo(v)} is a float; give exact entries "
                             "(integers, fractions as strings like '1/2', or sympy numbers such as sqrt(3)/2)"
                         )
-                try:
-                    out.append(sp.sympify(v))
-                except (sp.SympifyError, TypeError) as exc:
-                    raise InvalidOperationError(f"cannot read matrix entry {v!r}") from exc
+                out.append(_exact_entry(v))
             rows.append(out)
         m = exact_matrix(rows)
         if check and not _orthogonal(m):
-            raise InvalidOperationError(f"matrix {m.tolist()} is not orthogonal (R R^T != 1)")
+            raise InvalidOperationError(f"matrix {echo(m.tolist())} is not orthogonal (R R^T != 1)")
         return cls(m, bool(time_reversal))
 
     @classmethod
@@ -217,24 +241,24 @@ class Operation:
             For a malformed triplet, an unknown basis or a non-orthogonal result.
         """
         if basis not in _BASES:
-            raise InvalidOperationError(f"basis {basis!r} is not one of {_BASES}")
+            raise InvalidOperationError(f"basis {echo(basis)} is not one of {_BASES}")
         parts = [p for p in str(text).split(",")]
         flag = None
         if len(parts) == 4:
             last = parts[3].strip()
             if last not in ("-1", "+1", "1"):
                 raise InvalidOperationError(
-                    f"the fourth entry of triplet {text!r} must be +1 or -1 (time reversal), got {last!r}"
+                    f"the fourth entry of triplet {echo(text)} must be +1 or -1 (time reversal), got {echo(last)}"
                 )
             flag = last == "-1"
             parts = parts[:3]
         if len(parts) != 3:
             raise InvalidOperationError(
-                f"a triplet has three comma-separated components (optionally a fourth +1/-1), got {text!r}"
+                f"a triplet has three comma-separated components (optionally a fourth +1/-1), got {echo(text)}"
             )
         if time_reversal is not None:
             if flag is not None and flag != bool(time_reversal):
-                raise InvalidOperationError(f"triplet {text!r} contradicts time_reversal={time_reversal}")
+                raise InvalidOperationError(f"triplet {echo(text)} contradicts time_reversal={time_reversal}")
             flag = bool(time_reversal)
         w = sp.Matrix([_parse_component(p, text) for p in parts])
         if basis == "hexagonal":
@@ -242,7 +266,7 @@ class Operation:
         m = exact_matrix(w)
         if not _orthogonal(m):
             raise InvalidOperationError(
-                f"triplet {text!r} ({basis} basis) is not an orthogonal operation in Cartesian axes"
+                f"triplet {echo(text)} ({basis} basis) is not an orthogonal operation in Cartesian axes"
                 + ("" if basis == "hexagonal" else "; for a hexagonal-basis triplet pass basis='hexagonal'")
             )
         return cls(m, bool(flag))
@@ -460,7 +484,7 @@ class Operation:
             If the basis is unknown or the matrix is not rational in that basis.
         """
         if basis not in _BASES:
-            raise InvalidOperationError(f"basis {basis!r} is not one of {_BASES}")
+            raise InvalidOperationError(f"basis {echo(basis)} is not one of {_BASES}")
         m = sp.Matrix(self.matrix)
         if basis == "hexagonal":
             m = (_HEX_INV * m * HEXAGONAL_BASIS).applyfunc(lambda e: sp.expand(sp.radsimp(e)))

@@ -39,6 +39,7 @@ from tensym.exact.matrices import matmul
 from tensym.groups.catalog import SETTINGS, catalog_group, default_setting, setting_names
 from tensym.groups.continuous import ContinuousGroup
 from tensym.groups.finite import MAX_GROUP_ORDER, GroupNames, PointGroup
+from tensym.groups.messages import echo
 from tensym.groups.operations import HEXAGONAL_BASIS, Operation, proper_order
 from tensym.groups.symbols import as_group
 
@@ -398,14 +399,14 @@ def group_from_generators(generators, *, basis="cartesian"):
     ('321', 6)
     """
     if basis not in _BASES:
-        raise InvalidOptionError(f"basis={basis!r} is not one of {_BASES}")
+        raise InvalidOptionError(f"basis={echo(basis)} is not one of {_BASES}")
     if isinstance(generators, (str, Operation)):
         generators = [generators]
     try:
         items = list(generators)
     except TypeError as exc:
         raise InvalidOperationError(
-            f"generators must be a sequence of Operations, triplets or 3x3 matrices, got {generators!r}"
+            f"generators must be a sequence of Operations, triplets or 3x3 matrices, got {echo(generators)}"
         ) from exc
     gens = [_to_operation(g, basis) for g in items]
     if any(g.time_reversal for g in gens):
@@ -422,7 +423,11 @@ def _exact_rotation_arg(rotation, what="rotation"):
     try:
         op = Operation.from_matrix(rotation)
     except InvalidOperationError as exc:
-        raise InvalidOperationError(f"{what}: {exc}") from exc
+        hint = ""
+        if "symbolic" in str(exc):
+            hint = ("; a group is turned by a numeric rotation only - to turn a tensor form by a symbolic "
+                    "rotation use TensorForm.rotated(R)")
+        raise InvalidOperationError(f"{what}: {exc}{hint}") from exc
     if op.det != 1:
         raise InvalidOperationError(
             f"{what} {op.matrix.tolist()} is improper (det = -1); give a proper rotation (det = +1)"
@@ -488,7 +493,7 @@ def _exact_vector(v, name):
     try:
         arr = list(v)
     except TypeError as exc:
-        raise InvalidOperationError(f"{name} must be a 3-vector, got {v!r}") from exc
+        raise InvalidOperationError(f"{name} must be a 3-vector, got {echo(v)}") from exc
     if len(arr) != 3:
         raise InvalidOperationError(f"{name} must have 3 components, got {len(arr)}")
     out = []
@@ -496,13 +501,13 @@ def _exact_vector(v, name):
         if isinstance(x, (float, np.floating)):
             if not float(x).is_integer():
                 raise InvalidOperationError(
-                    f"{name} has the float component {x!r}; give exact numbers (integers, '1/2', sqrt(3))"
+                    f"{name} has the float component {echo(x)}; give exact numbers (integers, '1/2', sqrt(3))"
                 )
             x = int(x)
         try:
             out.append(sp.sympify(x))
         except (sp.SympifyError, TypeError) as exc:
-            raise InvalidOperationError(f"cannot read component {x!r} of {name}") from exc
+            raise InvalidOperationError(f"cannot read component {echo(x)} of {name}") from exc
     m = sp.Matrix(out)
     if all(sp.simplify(x) == 0 for x in m):
         raise InvalidOperationError(f"{name} is the zero vector")
@@ -592,11 +597,11 @@ def rotation_about(axis, angle):
     [0,  0, 1]])
     """
     if isinstance(angle, (float, np.floating)) or (isinstance(angle, sp.Basic) and angle.has(sp.Float)):
-        raise InvalidOperationError(f"angle {angle!r} is a float; give an exact angle such as sympy.pi/3")
+        raise InvalidOperationError(f"angle {echo(angle)} is a float; give an exact angle such as sympy.pi/3")
     try:
         t = sp.sympify(angle)
     except (sp.SympifyError, TypeError) as exc:
-        raise InvalidOperationError(f"cannot read angle {angle!r}") from exc
+        raise InvalidOperationError(f"cannot read angle {echo(angle)}") from exc
     u = _unit(_exact_vector(axis, "axis"))
     c, s = sp.cos(t), sp.sin(t)
     ux = sp.Matrix([[0, -u[2], u[1]], [u[2], 0, -u[0]], [-u[1], u[0], 0]])

@@ -61,6 +61,7 @@ import re
 
 from tensym.errors import InvalidGroupError, UnknownGroupError
 from tensym.groups.catalog import catalog_group
+from tensym.groups.messages import echo
 
 __all__ = ["space_group_point_group", "space_group_symbol", "is_space_group_symbol", "space_group_symbols"]
 
@@ -114,15 +115,6 @@ _SUBSCRIPT_DIGITS = str.maketrans("₀₁₂₃₄₅₆₇₈₉", "0123456789"
 _COMBINING_BAR = re.compile(r"(\d)[\u0304\u0305]")
 _SPACING_BAR = re.compile(r"[\u00af\u203e](\d)")
 _AMBIGUOUS_DIGITS = ("5", "7", "8", "9")
-_MAX_ECHO = 40
-
-
-def _echo(value):
-    """``repr`` of a user value for a message: a string cut to 40 characters (with '...'), else its repr cut."""
-    if isinstance(value, str):
-        return repr(value if len(value) <= _MAX_ECHO else value[:_MAX_ECHO] + "...")
-    r = repr(value)
-    return r if len(r) <= _MAX_ECHO + 2 else r[:_MAX_ECHO] + "..."
 
 
 # --- positions ----------------------------------------------------------------------
@@ -160,6 +152,8 @@ def _readings(chunk, *, implicit=True):
     out = []
 
     def walk(i, acc):
+        if len(acc) > 3:  # a space-group symbol has at most three positions after the lattice letter
+            return
         if i == len(chunk):
             out.append(list(acc))
             return
@@ -374,7 +368,7 @@ def _lookup(text):
         (number, setting, label), display = next(iter(hits.items()))
         return number, setting, label, display
     if len(hits) > 1:  # pragma: no cover - table consistency (tests read every symbol without '_')
-        raise AssertionError(f"space-group symbol {_echo(text)} reads as {sorted(hits.values())}")
+        raise AssertionError(f"space-group symbol {echo(text)} reads as {sorted(hits.values())}")
     return None
 
 
@@ -438,7 +432,7 @@ def space_group_symbol(group):
         return _number_arg(group), group
     found = _lookup(group)
     if found is None:
-        raise UnknownGroupError(f"{_echo(group)} is not a space-group symbol tensym knows")
+        raise UnknownGroupError(f"{echo(group)} is not a space-group symbol tensym knows")
     return _STANDARD[found[0] - 1], found[0]
 
 
@@ -510,7 +504,7 @@ def space_group_point_group(group):
     if found is None:
         near = nearest_space_groups(text)
         raise UnknownGroupError(
-            f"unknown space-group symbol {_echo(text)}"
+            f"unknown space-group symbol {echo(text)}"
             + (f"; nearest space-group symbols: {', '.join(repr(s) for s in near)}" if near else "")
         )
     return _group(*found)

@@ -14,7 +14,9 @@ Accepted spellings (see :func:`point_group`):
   ``'C2h'``, ``'D2'`` (``'V'``), ``'D2d'`` (``'Vd'``), ``'D2h'`` (``'Vh'``),
   ``'S4'``, ``'C3i'`` (``'S6'``), ..., ``'Td'``, ``'Oh'``, ``'I'``, ``'Ih'``,
   with subscript digits allowed (``'D₄h'``) and any letter case where this
-  is unambiguous (``'d4h'``);
+  is unambiguous (``'d4h'``); a lone lowercase ``'i'`` is refused, since
+  Schoenflies writes the inversion as i (the group Ci) while ``'I'`` is the
+  icosahedral group;
 * the continuous groups of :mod:`tensym.groups.continuous`: ``'SO(3)'``,
   ``'O(3)'``, ``'Cinf'``, ``'C∞v'``, ``'Dinfh'``, ``'inf/mm'``, ...;
 * magnetic symbols (a prime, ``"m'm'm"``, or Schoenflies ``'D2h(C2h)'``) go to
@@ -48,8 +50,8 @@ from tensym.errors import InvalidGroupError, UnknownGroupError
 from tensym.groups.catalog import SETTINGS, catalog_group
 from tensym.groups.continuous import CONTINUOUS_SYMBOLS, ContinuousGroup, continuous_group
 from tensym.groups.finite import PointGroup
+from tensym.groups.messages import echo
 from tensym.groups.spacegroups import (
-    _echo,
     _lookup as _space_group_lookup,
     _group as _space_group_from_parts,
     looks_like_space_group,
@@ -228,9 +230,15 @@ def _point_group(symbol, space_groups):
     if not isinstance(symbol, str):
         raise InvalidGroupError(
             f"a group symbol must be a string such as '4/mmm' or 'D4h' (or a space-group number 1..230), "
-            f"got {type(symbol).__name__} {_echo(symbol)}"
+            f"got {type(symbol).__name__} {echo(symbol)}"
         )
     key = normalise_symbol(symbol)
+    if key == "i":
+        raise UnknownGroupError(
+            "'i' is ambiguous: in Schoenflies notation i is the inversion (its group is 'Ci', '-1'), while "
+            "'I' is the icosahedral group 532; write 'Ci' or '-1' for the inversion group, 'I' or '532' for "
+            "the icosahedral one"
+        )
     magnetic = _magnetic_lookup()
     if magnetic is not None and any(c in key for c in "'\u2032\u2019\u2033"):  # primes, also typographic
         return magnetic(symbol)
@@ -251,7 +259,7 @@ def _point_group(symbol, space_groups):
     near = ", ".join(repr(s) for s in _nearest(symbol))
     what = "space-group or point-group" if looks_like_space_group(symbol) else "point-group"
     raise UnknownGroupError(
-        f"unknown {what} symbol {_echo(symbol)}; nearest valid symbols: {near} "
+        f"unknown {what} symbol {echo(symbol)}; nearest valid symbols: {near} "
         "(tensym.point_groups() lists the catalog; a space group is given by its symbol or number 1..230)"
     )
 

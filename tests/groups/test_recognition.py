@@ -182,3 +182,31 @@ def test_reorient_keeps_names_outside_the_catalog():
     r = reorient(g, q)
     assert r.setting_symbol == "own" and r.rotation == q and r.setting.startswith("own words")
     assert r.operation_keys() == base.operation_keys()  # a quarter turn maps mm2 onto itself
+
+
+# --- issue 11: symbolic and boolean entries give one-line tensym errors ----------------------
+_T = sp.Symbol("t")
+_RT = [[sp.cos(_T), -sp.sin(_T), 0], [sp.sin(_T), sp.cos(_T), 0], [0, 0, 1]]
+
+
+def test_issue_11_symbolic_generator():
+    with pytest.raises(InvalidOperationError, match=r"matrix entry cos\(t\) is symbolic \(free symbol t\)"):
+        group_from_generators([_RT])
+
+
+def test_issue_11_numpy_bool_generator():
+    with pytest.raises(InvalidOperationError, match=r"matrix entry True is a boolean.*astype\(int\)"):
+        group_from_generators([np.eye(3, dtype=bool)])
+
+
+@pytest.mark.parametrize("rotation", [_RT, sp.Matrix(_RT), sp.ImmutableMatrix(_RT)])
+def test_issue_11_reorient_by_a_symbolic_rotation_points_to_rotated_forms(rotation):
+    with pytest.raises(InvalidOperationError, match=r"rotation: .*symbolic.*TensorForm\.rotated\(R\)"):
+        reorient("6mm", rotation)
+
+
+@pytest.mark.parametrize("entry,match", [(sp.I, "is not real"), (sp.oo, "is not finite"), (sp.nan, "not finite"),
+                                         ("[1]", "cannot read matrix entry")])
+def test_non_numbers_as_entries(entry, match):
+    with pytest.raises(InvalidOperationError, match=match):
+        group_from_generators([[[entry, 0, 0], [0, 1, 0], [0, 0, 1]]])

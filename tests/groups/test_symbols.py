@@ -103,3 +103,33 @@ def test_public_api_lists_group_names():
     for mod in ("catalog", "finite", "operations", "continuous", "symbols", "recognition"):
         m = __import__(f"tensym.groups.{mod}", fromlist=["__all__"])
         assert all(hasattr(m, n) for n in m.__all__)
+
+
+# --- issue 11: small input defects -------------------------------------------------------
+def test_issue_11_lowercase_i_is_refused_as_ambiguous():
+    # Schoenflies: i is the inversion, its group Ci; I is the icosahedral group (Cotton 1990, from memory)
+    with pytest.raises(UnknownGroupError, match="'i' is ambiguous: .*'Ci' or '-1'.*'I' or '532'"):
+        point_group("i")
+    with pytest.raises(UnknownGroupError, match="ambiguous"):
+        as_group(" i ")
+    assert point_group("I").symbol == "532" and point_group("Ci").symbol == "-1"
+    assert point_group("ih").symbol == "-5-3m"  # only the lone letter is ambiguous
+
+
+@pytest.mark.parametrize("call", [
+    lambda s: point_group("X" * 10000),
+    lambda s: point_group("P" + "m" * 10000),
+    lambda s: point_group("m'" * 5000),
+    lambda s: tensym.group_from_generators(["x,y," + "z" * 10000]),
+    lambda s: tensym.group_from_generators([[[1, 0, 0], [0, 1, 0], [0, 0, "1" * 10000]]]),
+])
+def test_issue_11_messages_cut_long_inputs(call):
+    with pytest.raises(TensymError) as info:
+        call(None)
+    text = str(info.value)
+    assert len(text) < 600 and "..." in text
+
+
+def test_issue_11_p63mc_is_accepted():
+    # it was suggested as '3m' by the nearest-symbol error; ITA Vol. A: P6_3mc is no. 186, class 6mm
+    assert point_group("P6_3mc").symbol == "6mm"
