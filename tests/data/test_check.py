@@ -284,10 +284,13 @@ def test_refusals():
         tensym.check_tensor(c, "elastic_stiffness", "m-3x")
     from tensym.errors import InvalidGroupError
 
-    with pytest.raises(InvalidGroupError, match="expected a point group or its symbol"):
+    # a whole number is a space-group number (1..230, International Tables Vol. A)
+    with pytest.raises(UnknownGroupError, match=r"outside 1\.\.230"):
         tensym.check_tensor(c, "elastic_stiffness", 432)
-    with pytest.raises(InvalidGroupError, match="expected a point group or its symbol"):
+    with pytest.raises(UnknownGroupError, match=r"outside 1\.\.230"):
         tensym.orient(c, "elastic_stiffness", 432)
+    with pytest.raises(InvalidGroupError, match="expected a point group or its symbol"):
+        tensym.check_tensor(c, "elastic_stiffness", 4.32)
     with pytest.raises(InvalidOptionError, match="tol_kind='percent' is not one of relative, absolute"):
         tensym.check_tensor(c, "elastic_stiffness", "m-3m", tol_kind="percent")
     with pytest.raises(DataError, match="tol must be a finite number"):
