@@ -11,16 +11,26 @@ argument, what arrived and what is accepted):
 
 * the shape must be the Voigt shape, the full shape or (with
   ``layout='components'``) the number of distinct components;
-* every value must be finite (NaN and inf are refused, with their positions);
+* the values must be real numbers: complex numbers (the imaginary part would
+  be lost; tensym's data properties are real tensors), booleans, strings,
+  symbolic expressions and numbers beyond the float64 range are refused, with
+  the entry named (one numeric edge, ``_as_float_array``, used by every entry
+  point of the data layer);
+* inf is refused with its positions; **NaN marks a component that is not
+  given** (unknown, never taken as zero: write 0 for a component known to be
+  zero).  A component is given when any of its entries is (c12 or c21); one
+  that no entry gives is unknown, and at least one component must be given;
 * entries that the property's own index symmetry makes equal (c_12 and c_21,
   d_123 and d_132, ...) must agree within ``symmetry_tol`` (relative to the
   largest entry); they are *not* averaged when they disagree: the error names
-  the disagreeing entries.  Components an antisymmetry forces to vanish must
-  vanish;
-* standard uncertainties must be finite and strictly positive, and follow the
-  same index symmetry;
+  the disagreeing entries (also when some of them are NaN: the given ones must
+  agree).  Components an antisymmetry forces to vanish must vanish;
+* standard uncertainties must be finite and strictly positive for every given
+  component (those of unknown components are ignored), follow the same index
+  symmetry, and have squares inside the float64 range;
 * a covariance must be (n, n) over the distinct components in the order of
-  :attr:`TensorData.labels`, symmetric and positive definite;
+  :attr:`TensorData.labels`, symmetric and positive definite over the given
+  components (rows and columns of unknown components are ignored);
 * units must be a label accepted for the property (:mod:`tensym.data.units`).
 
 Examples
@@ -39,6 +49,7 @@ tensym.errors.DataError: values contradict the index symmetry of elastic_stiffne
 """
 
 from dataclasses import dataclass, field
+import math
 import numbers
 
 import numpy as np
@@ -89,10 +100,12 @@ class TensorData:
         The property the numbers belong to.
     components : numpy.ndarray
         float64 (n,), read-only: the value of each distinct component in the
-        Voigt convention of the property, in the order of :attr:`labels`.
+        Voigt convention of the property, in the order of :attr:`labels`; NaN
+        for a component that is not given (unknown, never taken as zero).
     covariance : numpy.ndarray or None
         float64 (n, n), read-only: covariance of :attr:`components` (diagonal
-        when standard uncertainties were given), or None.
+        when standard uncertainties were given; NaN in the rows and columns of
+        unknown components), or None.
     units : str or None
         Unit label, echoed in reports (never converted).
     source : str
@@ -113,6 +126,32 @@ class TensorData:
     source: str = "array"
     _cache: dict = field(default_factory=dict, repr=False, compare=False)
 
+    def __post_init__(self):
+        # direct construction goes through the same numeric edge as tensor_data
+        if not isinstance(self.property, Property):
+            raise DataError(f"TensorData needs a Property (tensym.tensors.catalog), got "
+                            f"{type(self.property).__name__}; build data with tensym.tensor_data")
+        n = _layout(self.property).n
+        x = _as_float_array(self.components, "components")
+        if x.shape != (n,):
+            raise DataError(f"components of {self.property.name} must have shape ({n},), got {x.shape}")
+        _check_finite(x, "components", x.shape, nan_ok=True)
+        if np.isnan(x).all():
+            raise DataError(f"components of {self.property.name} are all NaN (unknown): nothing is given")
+        if self.components is not x or self.components.flags.writeable:
+            object.__setattr__(self, "components", _readonly(x))
+        if self.covariance is not None:
+            c = _as_float_array(self.covariance, "covariance")
+            if c.shape != (n, n):
+                raise DataError(f"covariance must be ({n}, {n}), got {c.shape}")
+            known = ~np.isnan(x)
+            _check_finite(c[np.ix_(known, known)], "covariance", (int(known.sum()),) * 2)
+            object.__setattr__(self, "covariance", _readonly(c))
+        if self.units is not None and not isinstance(self.units, str):
+            raise DataError(f"units must be a string or None, got {type(self.units).__name__}")
+        if not isinstance(self.source, str):
+            raise DataError(f"source must be a string, got {type(self.source).__name__}")
+
     # --- views -----------------------------------------------------------------
     @property
     def layout(self):
@@ -130,13 +169,41 @@ class TensorData:
         return self.layout.n
 
     @property
+    def known(self):
+        """bool (n,), read-only: which distinct components are given (False: unknown, NaN in :attr:`components`)."""
+        hit = self._cache.get("known")
+        if hit is None:
+            hit = ~np.isnan(self.components)
+            hit.setflags(write=False)
+            self._cache["known"] = hit
+        return hit
+
+    @property
+    def n_given(self):
+        """Number of distinct components given (the others are unknown)."""
+        return int(self.known.sum())
+
+    @property
+    def is_complete(self):
+        """True when every distinct component is given."""
+        return bool(self.known.all())
+
+    def _need_complete(self, what):
+        if not self.is_complete:
+            missing = [lab for lab, k in zip(self.labels, self.known) if not k]
+            raise DataError(f"{what} needs every component, but the data give {self.n_given} of the {self.n} "
+                            f"distinct components of {self.property.name} (unknown: {', '.join(missing[:6])}"
+                            f"{', ...' if len(missing) > 6 else ''}); give the others, or write 0 for a component "
+                            "known to be zero")
+
+    @property
     def voigt(self):
-        """Voigt array (float64, new array): 6x6 for c and s, 3x6 for d, 3x3 for epsilon, ..."""
+        """Voigt array (float64, new array): 6x6 for c and s, 3x6 for d, 3x3 for epsilon, ... (NaN: unknown)."""
         return self.layout.x_to_voigt(self.components)
 
     @property
     def tensor(self):
-        """Full Cartesian tensor (float64, shape (3,)*rank, new array)."""
+        """Full Cartesian tensor (float64, shape (3,)*rank, new array; NaN: unknown)."""
         return self.layout.x_to_full(self.components)
 
     @property
@@ -183,18 +250,29 @@ class TensorData:
         Raises
         ------
         DataError
-            If ``rotation`` is not an orthogonal 3x3 matrix (to 1e-6).
+            If ``rotation`` is not an orthogonal 3x3 matrix (to 1e-6), some
+            components are unknown (a rotation mixes them), or the rotated
+            components leave the float64 range.
         """
         from tensym.data.rotation import as_rotation
         from tensym.data.model import rotation_action
 
+        self._need_complete("a rotation (it mixes the components)")
         r = as_rotation(rotation, proper=False)
         m = rotation_action(self.layout, r)
         if self.property.spec.axial and np.linalg.det(r) < 0:
             m = -m
-        cov = None if self.covariance is None else m @ self.covariance @ m.T
-        return TensorData(self.property, _readonly(m @ self.components),
-                          None if cov is None else _readonly(0.5 * (cov + cov.T)), self.units,
+        e = _exponent(self.components) or 0  # a scaled copy: no overflow at any magnitude
+        with np.errstate(over="ignore"):
+            x = np.ldexp(m @ np.ldexp(self.components, -e), e)
+            cov = None
+            if self.covariance is not None:
+                cs = m @ np.ldexp(self.covariance, -2 * e) @ m.T
+                cov = np.ldexp(0.5 * (cs + cs.T), 2 * e)
+        if not np.all(np.isfinite(x)) or (cov is not None and not np.all(np.isfinite(cov))):
+            raise DataError(f"the rotated {self.property.name} has components beyond the float64 range (about "
+                            "1.8e308): the data are too near that limit to be rotated; express them in other units")
+        return TensorData(self.property, _readonly(x), None if cov is None else _readonly(cov), self.units,
                           f"rotated {self.source}")
 
     def record(self):
@@ -212,31 +290,135 @@ class TensorData:
     def __repr__(self):
         u = f" [{self.units}]" if self.units else ""
         unc = ", with uncertainties" if self.covariance is not None else ""
-        return f"<TensorData {self.property.name}{u}: {self.n} components{unc}, from {self.source}>"
+        given = f"{self.n} components" if self.is_complete else f"{self.n_given} of {self.n} components given"
+        return f"<TensorData {self.property.name}{u}: {given}{unc}, from {self.source}>"
+
+
+def _first(arr, mask):
+    i = int(np.flatnonzero(mask.reshape(-1))[0])
+    return arr.reshape(-1)[i], _entry_text(np.unravel_index(i, arr.shape)) if arr.ndim else "()"
+
+
+_COMPLEX_HINT = ("the data properties of tensym are real tensors; a complex quantity (a lossy "
+                 "permittivity, a complex susceptibility) is not supported: check its real and imaginary "
+                 "parts as two real tensors (values.real, values.imag)")
+
+
+def _object_to_float(raw, name):
+    """float64 copy of an object array whose entries must each be a real number."""
+    import sympy as sp
+
+    out = np.empty(raw.shape, dtype=np.float64)
+    flat_in, flat_out = raw.reshape(-1), out.reshape(-1)
+    for i, v in enumerate(flat_in):
+        where = _entry_text(np.unravel_index(i, raw.shape)) if raw.ndim else "()"
+        if isinstance(v, (bool, np.bool_)):
+            raise DataError(f"{name} entry {where} is {v!r}, a boolean; give numbers")
+        if isinstance(v, (str, bytes)):
+            raise DataError(f"{name} entry {where} is the string {_cut(repr(v))}; give numbers "
+                            "(convert text with float() first)")
+        if isinstance(v, sp.Basic):
+            if not (getattr(v, "is_number", False)):
+                raise DataError(f"{name} entry {where} is the symbolic expression {_cut(str(v))}; give numbers "
+                                "(substitute values for its symbols first)")
+            if v.is_real is False or (v.is_real is None and sp.im(sp.N(v)) != 0):
+                raise DataError(f"{name} entry {where} is the complex number {_cut(str(v))}: {_COMPLEX_HINT}")
+        elif isinstance(v, numbers.Complex) and not isinstance(v, numbers.Real):
+            raise DataError(f"{name} entry {where} is the complex number {_cut(repr(v))}: {_COMPLEX_HINT}")
+        elif not isinstance(v, numbers.Real):
+            raise DataError(f"{name} entry {where} is a {type(v).__name__} ({_cut(repr(v))}), not a number")
+        try:
+            flat_out[i] = float(v)
+        except OverflowError as exc:
+            raise DataError(f"{name} entry {where} is {_cut(str(v))}, beyond the float64 range "
+                            "(about 1.8e308); express the data in other units") from exc
+        except (TypeError, ValueError) as exc:
+            raise DataError(f"{name} entry {where} ({_cut(repr(v))}) is not a real number") from exc
+        if math.isinf(flat_out[i]) and not (isinstance(v, float) and math.isinf(v)):
+            raise DataError(f"{name} entry {where} is {_cut(str(v))}, beyond the float64 range (about 1.8e308); "
+                            "express the data in other units")
+    return out
+
+
+def _cut(text, n=40):
+    text = str(text)
+    return text if len(text) <= n else text[: n - 3] + "..."
 
 
 def _as_float_array(values, name):
+    """The one numeric edge of the data layer: a float64 copy of ``values``, or a DataError.
+
+    Accepted: real numbers (Python, numpy, sympy numbers) in a numpy array or
+    nested lists of equal lengths.  Refused, with the entry named: complex
+    numbers (the imaginary part would be lost), booleans, strings, symbolic
+    expressions, other objects, and numbers beyond the float64 range.  NaN
+    and inf pass here; the callers decide (NaN marks an unknown component).
+    """
     if isinstance(values, (str, bytes)):
         raise DataError(f"{name} must be numbers (a numpy array or nested lists), got a string")
     try:
-        arr = np.array(values, dtype=np.float64)
+        raw = np.asarray(values)
     except (TypeError, ValueError) as exc:
         raise DataError(f"{name} must be a rectangular array of numbers (numpy array or nested lists "
-                        f"of equal lengths): {exc}") from exc
+                        f"of equal lengths): {_cut(exc, 120)}") from exc
+    kind = raw.dtype.kind
+    if kind == "c":
+        nonreal = np.imag(raw) != 0
+        if nonreal.any():
+            v, where = _first(raw, nonreal)
+            raise DataError(f"{name} are complex (entry {where} is {v}): {_COMPLEX_HINT}")
+        raise DataError(f"{name} have a complex dtype ({raw.dtype}); give a real array (values.real if "
+                        "the imaginary parts are all zero)")
+    if kind == "b":
+        raise DataError(f"{name} are booleans (dtype bool), not numbers")
+    if kind in "USa":
+        v, where = _first(raw, np.ones(raw.shape, dtype=bool)) if raw.size else ("", "()")
+        raise DataError(f"{name} contain strings (entry {where} is {_cut(repr(str(v)))}); give numbers "
+                        "(convert text with float() first)")
+    if kind == "O":
+        return _object_to_float(raw, name)
+    if kind not in "fiu":
+        raise DataError(f"{name} must be real numbers, got an array of dtype {raw.dtype}")
+    with np.errstate(over="ignore"):
+        arr = np.array(raw, dtype=np.float64, copy=True)
+    if kind == "f" and raw.dtype.itemsize > 8:
+        lost = np.isinf(arr) & np.isfinite(raw)
+        if lost.any():
+            v, where = _first(raw, lost)
+            raise DataError(f"{name} entry {where} is {v}, beyond the float64 range (about 1.8e308); "
+                            "express the data in other units")
     return arr
+
+
+def _exponent(x):
+    """The binary exponent e of max |x| over the given (non-NaN) values (None when they are all zero).
+
+    The numeric work of the data layer is done on the copy ldexp(x, -e),
+    whose largest magnitude lies in [0.5, 1), and results are scaled back by
+    2**e: a power of two is exact, so results do not depend on the magnitude
+    of the units (1e-300 to 1e300) and nothing overflows or underflows inside.
+    """
+    a = np.abs(np.asarray(x, dtype=np.float64)).reshape(-1)
+    m = float(np.fmax.reduce(a)) if a.size else 0.0
+    if not m > 0:
+        return None
+    return int(np.frexp(m)[1])
 
 
 def _entry_text(pos):
     return "(" + ", ".join(str(int(i) + 1) for i in pos) + ")"
 
 
-def _check_finite(arr, name, shape):
-    bad = ~np.isfinite(arr)
+def _check_finite(arr, name, shape, *, nan_ok=False):
+    """Refuse inf (and NaN unless ``nan_ok``: NaN marks an unknown value) with the positions."""
+    bad = np.isinf(arr) if nan_ok else ~np.isfinite(arr)
     if bad.any():
         where = [_entry_text(np.unravel_index(int(i), shape)) for i in np.flatnonzero(bad)[:4]]
         kind = "NaN" if np.isnan(arr[bad]).any() else "inf"
+        hint = ("; NaN marks an unknown value, but an infinite one is not a measurement" if nan_ok
+                else "; every value must be finite")
         raise DataError(f"{name} contains {kind} (not a finite number) at entr{'y' if len(where) == 1 else 'ies'} "
-                        f"{', '.join(where)}; every value must be finite")
+                        f"{', '.join(where)}{hint}")
 
 
 def _detect_layout(arr, lay, layout, name):
@@ -285,6 +467,9 @@ def _tables(lay, kind):
     summ[np.arange(len(others)), comp[others]] = 1.0
     hit = dict(comp=comp, rep=rep, shape=shape, where=where, mult=mult, others=others, dead=dead,
                counts=counts, summ=summ, rep_mult=mult[rep], other_mult=mult[others], other_comp=comp[others])
+    for v in hit.values():
+        if isinstance(v, np.ndarray):
+            v.setflags(write=False)  # a process-wide cache
     _TABLES[key] = hit
     return hit
 
@@ -298,6 +483,8 @@ def _to_components(arr, lay, kind, name, tol, positive=False):
     """
     if kind == "components":
         return arr.copy()
+    if np.isnan(arr).any():
+        return _to_components_partial(arr, lay, kind, name, tol, positive)
     tb = _tables(lay, kind)
     shape, where = tb["shape"], tb["where"]
     lead = arr.shape[: arr.ndim - len(shape)]
@@ -339,8 +526,85 @@ def _to_components(arr, lay, kind, name, tol, positive=False):
     return (x + o @ tb["summ"]) / tb["counts"]
 
 
+def _members(tb, n):
+    """int64 (n, m): the entries of each component, the representative first (-1 pads)."""
+    hit = tb.get("members")
+    if hit is None:
+        lists = [[int(tb["rep"][c])] for c in range(n)]
+        for i in tb["others"]:
+            lists[int(tb["comp"][i])].append(int(i))
+        hit = np.full((n, max(len(m) for m in lists)), -1, dtype=np.int64)
+        for c, m in enumerate(lists):
+            hit[c, :len(m)] = m
+        hit.setflags(write=False)
+        tb["members"] = hit
+    return hit
+
+
+def _to_components_partial(arr, lay, kind, name, tol, positive):
+    """As :func:`_to_components` for arrays with NaN entries (unknown values).
+
+    A component is given when any of its entries is given (c12 or c21); the
+    given entries of one component must agree within the tolerance (they are
+    not averaged when they disagree: an error names them); a component none of
+    whose entries is given is NaN.
+    """
+    tb = _tables(lay, kind)
+    shape, where = tb["shape"], tb["where"]
+    lead = arr.shape[: arr.ndim - len(shape)]
+    flat = arr.reshape(lead + (-1,))
+    mem = _members(tb, lay.n)
+    pad = mem < 0
+    safe = np.where(pad, 0, mem)
+    vals = np.where(pad, np.nan, flat[..., safe] * tb["mult"][safe])  # (..., n, m)
+    if positive:
+        vals = np.abs(vals)
+    known = ~np.isnan(vals)
+    big = np.fmax.reduce(np.abs(flat), axis=-1)
+    thr = tol * np.where(np.isnan(big), 0.0, big)
+    if tb["dead"].size and not positive:
+        dv = flat[..., tb["dead"]]
+        zero_bad = np.abs(dv) > thr[..., None]
+        if zero_bad.any():
+            pos = np.argwhere(zero_bad)[0]
+            i = int(tb["dead"][pos[-1]])
+            row = flat[tuple(pos[:-1])]
+            raise DataError(f"{name} of {lay.prop.name}{_stack_text(pos[:-1])}: {where} "
+                            f"{_entry_text(np.unravel_index(i, shape))} is {row[i]:g} but the index symmetry "
+                            "of the property makes it vanish")
+    first = np.argmax(known, axis=-1)
+    ref = np.take_along_axis(vals, first[..., None], axis=-1)
+    with np.errstate(invalid="ignore"):
+        bad = known & (np.abs(vals - ref) > thr[..., None, None])
+    if bad.any():
+        pos = np.argwhere(bad)[0]
+        stack, c, jm = tuple(pos[:-2]), int(pos[-2]), int(pos[-1])
+        i, j = int(mem[c, jm]), int(mem[c, int(first[stack + (c,)])])
+        row = flat[stack]
+        raise DataError(
+            f"{name} contradict the index symmetry of {lay.prop.name}{_stack_text(pos[:-2])}: {lay.labels[c]} = "
+            f"{row[j]:g} at {where} {_entry_text(np.unravel_index(j, shape))} but {row[i]:g} at "
+            f"{_entry_text(np.unravel_index(i, shape))}; the entries are not averaged: correct them, "
+            f"or pass a larger symmetry_tol (now {tol:g}, relative to the largest entry)")
+    count = known.sum(axis=-1)
+    total = np.where(known, vals, 0.0).sum(axis=-1)
+    with np.errstate(invalid="ignore", divide="ignore"):
+        return np.where(count > 0, total / np.maximum(count, 1), np.nan)
+
+
 def _stack_text(pos):
     return "" if len(pos) == 0 else f" (tensor {', '.join(str(int(p)) for p in pos)} of the stack)"
+
+
+def _check_variance_range(sx, name):
+    """Standard uncertainties whose squares stay inside float64 (variances are stored)."""
+    with np.errstate(over="ignore", under="ignore"):
+        sq = sx**2
+    if sx.size and (np.any(np.isinf(sq)) or np.any((sq < np.finfo(np.float64).tiny) & (sx > 0))):
+        lo, hi = float(np.min(sx)), float(np.max(sx))
+        raise DataError(f"{name}: uncertainties between {lo:.3g} and {hi:.3g} have squares (variances) outside "
+                        "the float64 range (about 1e-308 to 1e308); express the data in units nearer their size "
+                        "(GPa instead of Pa, pC/N instead of C/N)")
 
 
 def tensor_data(values, what=None, *, sigma=None, covariance=None, units=None, layout="auto",
@@ -411,8 +675,12 @@ def tensor_data(values, what=None, *, sigma=None, covariance=None, units=None, l
         raise DataError(f"symmetry_tol must be a number in [0, 1), got {symmetry_tol!r}")
     arr = _as_float_array(values, "values")
     kind = _detect_layout(arr, lay, layout, "values")
-    _check_finite(arr, "values", arr.shape)
+    _check_finite(arr, "values", arr.shape, nan_ok=True)
     x = _to_components(arr, lay, kind, "values", float(symmetry_tol))
+    known = ~np.isnan(x)
+    if not known.any():
+        raise DataError(f"values give no component of {prop.name}: every entry is NaN, the marker of an unknown "
+                        "component; give the measured components (write 0 for a component known to be zero)")
     cov = None
     if sigma is not None and covariance is not None:
         raise DataError("give either sigma (standard uncertainties) or covariance, not both")
@@ -420,7 +688,7 @@ def tensor_data(values, what=None, *, sigma=None, covariance=None, units=None, l
         s = _as_float_array(sigma, "sigma")
         if s.shape != arr.shape:
             raise DataError(f"sigma must have the shape of values {arr.shape}, got {s.shape}")
-        _check_finite(s, "sigma", s.shape)
+        _check_finite(s, "sigma", s.shape, nan_ok=True)
         nonpos = s <= 0
         if kind != "components":
             comp = lay.voigt_comp if kind == "voigt" else lay.flat_comp
@@ -430,21 +698,36 @@ def tensor_data(values, what=None, *, sigma=None, covariance=None, units=None, l
             raise DataError(f"sigma must be strictly positive standard uncertainties; entry "
                             f"{_entry_text(np.unravel_index(i, s.shape))} is {s.reshape(-1)[i]:g}")
         sx = _to_components(s, lay, kind, "sigma", float(symmetry_tol), positive=True)
+        lacking = known & np.isnan(sx)
+        if lacking.any():
+            labs = [lay.labels[c] for c in np.flatnonzero(lacking)]
+            raise DataError(f"sigma is NaN (unknown) for {', '.join(labs[:6])}{', ...' if len(labs) > 6 else ''}, "
+                            "whose value is given; give an uncertainty for every given component, or no sigma")
+        sx = np.where(known, sx, np.nan)  # uncertainties of unknown components are ignored
+        _check_variance_range(sx[known], "sigma")
         cov = np.diag(sx**2)
+        cov[~known, :] = np.nan
+        cov[:, ~known] = np.nan
     if covariance is not None:
         c = _as_float_array(covariance, "covariance")
         if c.shape != (lay.n, lay.n):
             raise DataError(f"covariance must be ({lay.n}, {lay.n}) over the distinct components "
                             f"{', '.join(lay.labels[:4])}, ... (tensym.component_labels), got {c.shape}")
+        c = c.copy()
+        c[~known, :] = 0.0  # rows and columns of unknown components are ignored
+        c[:, ~known] = 0.0
         _check_finite(c, "covariance", c.shape)
-        if not np.allclose(c, c.T, rtol=1e-10, atol=1e-14 * max(1.0, float(np.max(np.abs(c))))):
+        if not np.allclose(c, c.T, rtol=1e-10, atol=1e-14 * max(1e-300, float(np.max(np.abs(c))))):
             raise DataError("covariance must be symmetric")
+        kk = np.ix_(known, known)
         try:
-            np.linalg.cholesky(c)
+            np.linalg.cholesky(c[kk])
         except np.linalg.LinAlgError as exc:
             raise DataError("covariance must be positive definite (every variance > 0, no exact "
-                            "linear dependence)") from exc
+                            "linear dependence)" + (" over the given components" if not known.all() else "")) from exc
         cov = 0.5 * (c + c.T)
+        cov[~known, :] = np.nan
+        cov[:, ~known] = np.nan
     u = check_units(units, prop)
     if not isinstance(source, str):
         raise DataError(f"source must be a string, got {type(source).__name__}")

@@ -66,7 +66,8 @@ def invert_elastic(values, what="elastic_stiffness"):
     Raises
     ------
     DataError
-        For another property, a wrong shape, non-finite values, a non-symmetric
+        For another property, a wrong shape, values that are not real numbers,
+        NaN (unknown components) or inf, a non-symmetric
         Voigt matrix (to 1e-8 relative) or a (nearly) singular matrix.
 
     Examples
@@ -75,14 +76,19 @@ def invert_elastic(values, what="elastic_stiffness"):
     >>> invert_elastic(np.eye(6), "elastic_compliance").diagonal().tolist()
     [1.0, 1.0, 1.0, 1.0, 1.0, 1.0]
     """
+    from tensym.data.dataset import _as_float_array
+
     prop, inv = _inverse_prop(what)
-    a = np.asarray(values, dtype=np.float64)
+    a = _as_float_array(values, "values")
     full = a.ndim >= 4 and a.shape[-4:] == (3, 3, 3, 3)
     if not full and (a.ndim < 2 or a.shape[-2:] != (6, 6)):
         raise DataError(f"{prop.name} must be Voigt matrices (..., 6, 6) or full tensors (..., 3, 3, 3, 3), "
                         f"got shape {a.shape}")
-    if not np.all(np.isfinite(a)):
-        raise DataError(f"{prop.name} contains NaN or inf")
+    if np.any(np.isinf(a)):
+        raise DataError(f"{prop.name} contains inf")
+    if np.any(np.isnan(a)):
+        raise DataError(f"{prop.name} contains NaN (a component that is not given): the inverse needs every "
+                        "component; give them all (write 0 for a component known to be zero)")
     lay, lay_inv = _layout(prop), _layout(inv)
     if full:
         m = lay.x_to_voigt(lay.full_to_x(a))
@@ -115,7 +121,7 @@ def invert_data(data):
     Raises
     ------
     DataError
-        For another property or a (nearly) singular matrix.
+        For another property, unknown (NaN) components, or a (nearly) singular matrix.
 
     Examples
     --------
@@ -129,6 +135,7 @@ def invert_data(data):
     if not isinstance(data, TensorData):
         raise DataError(f"invert_data needs a TensorData, got {type(data).__name__}")
     prop, inv = _inverse_prop(data.property)
+    data._need_complete("the inverse")
     lay, lay_inv = _layout(prop), _layout(inv)
     m = data.voigt
     out = _inv(m)

@@ -42,6 +42,9 @@ __all__ = ["Layout", "layout", "NumericForm", "numeric_form", "rotate_full", "li
            "rotation_action", "group_key_of", "GroupSpace", "group_space", "pair_rotation"]
 
 _LETTERS = "abcdefghijklmnop"
+#: Array attributes of a Layout, made read-only once built.
+_LAYOUT_ARRAYS = ("size", "factor", "weight", "scale", "rep_flat", "flat_comp", "flat_sign", "flat_factor",
+                  "voigt_comp", "voigt_sign", "_vrep", "_dead_flat", "_dead_voigt")
 
 
 class Layout:
@@ -131,20 +134,30 @@ class Layout:
         self.voigt_comp = np.array(vcomp, dtype=np.int64)
         self.voigt_sign = np.array(vsign, dtype=np.int64)
         self.flat_factor = np.where(self.flat_comp >= 0, self.factor[np.maximum(self.flat_comp, 0)], 0.0)
+        self._vrep = self._voigt_rep_table()
+        self._dead_flat = self.flat_comp < 0
+        self._dead_voigt = self.voigt_comp < 0
+        # a layout is cached process-wide and reachable from every TensorData: its tables are read-only
+        for name in _LAYOUT_ARRAYS:
+            getattr(self, name).setflags(write=False)
 
     # --- conversions (stacked over leading axes) ---------------------------------
     def x_to_full(self, x):
-        """Full tensors (..., 3, ..., 3) from Voigt coordinates (..., n)."""
+        """Full tensors (..., 3, ..., 3) from Voigt coordinates (..., n); entries an antisymmetry kills are 0."""
         x = np.asarray(x, dtype=np.float64)
         c = np.maximum(self.flat_comp, 0)
         t = x[..., c] * (self.flat_sign * self.flat_factor)
+        if self._dead_flat.any():
+            t[..., self._dead_flat] = 0.0  # also when the component read there is NaN (unknown)
         return t.reshape(x.shape[:-1] + (3,) * self.rank)
 
     def x_to_voigt(self, x):
-        """Voigt arrays (..., *voigt_shape) from Voigt coordinates (..., n)."""
+        """Voigt arrays (..., *voigt_shape) from Voigt coordinates (..., n); dead entries are 0."""
         x = np.asarray(x, dtype=np.float64)
         c = np.maximum(self.voigt_comp, 0)
         v = x[..., c] * self.voigt_sign
+        if self._dead_voigt.any():
+            v[..., self._dead_voigt] = 0.0
         return v.reshape(x.shape[:-1] + self.voigt_shape)
 
     def full_to_x(self, t):
@@ -162,14 +175,15 @@ class Layout:
 
     @property
     def _voigt_rep(self):
-        if not hasattr(self, "_vrep"):
-            rep = np.zeros(self.n, dtype=np.int64)
-            dims = self.voigt_shape
-            for c, lab in enumerate(self.label_tuples):
-                v = tuple(d - 1 for d in lab)
-                rep[c] = int(np.ravel_multi_index(v, dims)) if dims else 0
-            self._vrep = rep
         return self._vrep
+
+    def _voigt_rep_table(self):
+        rep = np.zeros(self.n, dtype=np.int64)
+        dims = self.voigt_shape
+        for c, lab in enumerate(self.label_tuples):
+            v = tuple(d - 1 for d in lab)
+            rep[c] = int(np.ravel_multi_index(v, dims)) if dims else 0
+        return rep
 
     def voigt_index(self, label):
         """0-based Voigt index tuple of a component label ('c44' -> (3, 3))."""
@@ -286,6 +300,8 @@ class NumericForm:
         for r in form.relations:
             rel[str(r.lhs)] = r
         self.relations = rel
+        for name in ("A", "free", "zero", "tied", "Q", "fit"):
+            getattr(self, name).setflags(write=False)  # cached per (property, group)
 
 
 @lru_cache(maxsize=256)
@@ -320,6 +336,7 @@ for _v, (_i, _j) in VOIGT_TO_PAIR.items():
 
 #: Mandel projection (6, 9): K = M (R kron R) M^T acts on symmetric pairs.
 _M6 = _MANDEL.reshape(6, 9)
+_MANDEL.setflags(write=False)
 
 
 def pair_rotation(rotation):
@@ -392,6 +409,8 @@ class GroupSpace:
                 rep[c] = e
                 ratio[c] = lay.scale[c] / m
         self.y_rep, self.y_ratio = rep, ratio
+        for a in (self.z_comp, self.z_mult, self.y_rep, self.y_ratio):
+            a.setflags(write=False)  # cached per property
 
     def z_from_x(self, x):
         x = np.asarray(x, dtype=np.float64)

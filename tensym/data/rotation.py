@@ -48,6 +48,13 @@ __all__ = [
 ]
 
 
+def _real_array(values, name):
+    """float64 copy through the data layer's one numeric edge (complex, bool, strings refused)."""
+    from tensym.data.dataset import _as_float_array
+
+    return _as_float_array(values, name)
+
+
 def as_rotation(rotation, *, proper=True, name="rotation"):
     """A validated float64 3x3 orthogonal matrix (determinant +1 when ``proper``).
 
@@ -62,10 +69,7 @@ def as_rotation(rotation, *, proper=True, name="rotation"):
     >>> as_rotation(-np.eye(3), proper=False)[0].tolist()
     [-1.0, -0.0, -0.0]
     """
-    try:
-        r = np.array(rotation, dtype=np.float64)
-    except (TypeError, ValueError) as exc:
-        raise DataError(f"{name} must be a 3x3 matrix of numbers: {exc}") from exc
+    r = _real_array(rotation, name)
     if r.shape[-2:] != (3, 3):
         raise DataError(f"{name} must be a 3x3 matrix (or a stack of them), got shape {r.shape}")
     if not np.all(np.isfinite(r)):
@@ -91,7 +95,7 @@ def rotation_from_axis_angle(axis, angle):
     >>> rotation_from_axis_angle([0, 0, 1], 90).round(12).tolist()
     [[0.0, -1.0, 0.0], [1.0, 0.0, 0.0], [0.0, 0.0, 1.0]]
     """
-    u = np.array(axis, dtype=np.float64).reshape(-1)
+    u = _real_array(axis, "axis").reshape(-1)
     if u.shape != (3,) or not np.all(np.isfinite(u)) or np.linalg.norm(u) == 0:
         raise DataError(f"axis must be a non-zero finite 3-vector, got {axis!r}")
     if isinstance(angle, bool) or not isinstance(angle, numbers.Real) or not math.isfinite(angle):
@@ -164,7 +168,9 @@ def rotation_from_euler(alpha, beta, gamma):
     >>> rotation_from_euler(0, 90, 0).round(12).tolist()
     [[0.0, 0.0, 1.0], [0.0, 1.0, 0.0], [-1.0, 0.0, 0.0]]
     """
-    a, b, g = (np.radians(np.asarray(v, dtype=np.float64)) for v in (alpha, beta, gamma))
+    a, b, g = (np.radians(_real_array(v, n)) for v, n in ((alpha, "alpha"), (beta, "beta"), (gamma, "gamma")))
+    if not all(np.all(np.isfinite(v)) for v in (a, b, g)):
+        raise DataError("Euler angles must be finite numbers of degrees")
     return _rz(a) @ _ry(b) @ _rz(g)
 
 
@@ -204,8 +210,8 @@ def misorientation(r1, r2):
     >>> round(float(misorientation(rotation_from_euler(10, 0, 0), np.eye(3))), 9)
     10.0
     """
-    a = np.asarray(r1, dtype=np.float64)
-    b = np.asarray(r2, dtype=np.float64)
+    a = as_rotation(r1, proper=False, name="r1")
+    b = as_rotation(r2, proper=False, name="r2")
     m = np.einsum("...ij,...kj->...ik", a, b)
     return np.degrees(_angles(m))
 
@@ -363,7 +369,10 @@ def rotate_values(values, rotation, what, *, layout="auto"):
     lay = _layout(prop)
     if layout not in ("auto", "voigt", "full"):
         raise InvalidOptionError(f"layout={layout!r} is not one of auto, voigt, full")
-    arr = np.asarray(values, dtype=np.float64)
+    arr = _real_array(values, "values")
+    if not np.all(np.isfinite(arr)):
+        raise DataError("values contain NaN or inf: a rotation mixes the components, so every one must be a "
+                        "finite number (NaN marks an unknown component)")
     vs, fs = lay.voigt_shape, (3,) * lay.rank
     k = len(vs)
     is_voigt = arr.ndim >= k and arr.shape[arr.ndim - k:] == vs

@@ -13,6 +13,7 @@ Examples
 from dataclasses import dataclass, field
 from fractions import Fraction
 from functools import lru_cache
+import numbers
 
 import numpy as np
 import sympy as sp
@@ -414,7 +415,18 @@ class TensorForm(_SympyPrintable):
             key = str(k)
             if key not in names:
                 raise DataError(f"{key!r} is not an independent constant here; expected: {', '.join(names)}")
-            v = float(v)
+            if isinstance(v, (bool, np.bool_, str, bytes)) or (
+                    isinstance(v, numbers.Complex) and not isinstance(v, numbers.Real)) or (
+                    isinstance(v, sp.Basic) and v.is_real is not True):
+                what = ("a boolean" if isinstance(v, (bool, np.bool_)) else "complex" if isinstance(
+                    v, numbers.Complex) or isinstance(v, sp.Basic) and v.is_number else type(v).__name__)
+                raise DataError(f"value of {key} must be a real number, got {what} {str(v)[:40]!r}"
+                                + ("; the imaginary part would be lost: tensor forms are evaluated with real "
+                                   "constants" if what == "complex" else ""))
+            try:
+                v = float(v)
+            except (TypeError, ValueError, OverflowError) as exc:
+                raise DataError(f"value of {key} must be a real number, got {type(v).__name__}") from exc
             if not np.isfinite(v):
                 raise DataError(f"value of {key} is not finite: {v}")
             out[key] = v
@@ -454,7 +466,9 @@ class TensorForm(_SympyPrintable):
         Raises
         ------
         DataError
-            For a missing, unknown or non-finite value.
+            For a missing, unknown or non-finite value, or one that is not a
+            real number (complex: the imaginary part would be lost; booleans,
+            strings, symbols).
         """
         if isinstance(values, np.ndarray) and values.ndim == 2:
             return self._evaluate_batch(values, full)

@@ -89,13 +89,18 @@ def test_bad_values(values, match):
         tensor_data(values, "elastic_stiffness")
 
 
-def test_nan_and_inf_are_refused_with_position():
+def test_nan_marks_an_unknown_component_and_inf_is_refused_with_position():
+    # issue 11: a component that is not given is NaN (unknown), never zero
     c = _cubic()
-    c[2, 3] = np.nan
-    with pytest.raises(DataError, match=r"NaN .* at entry \(3, 4\)"):
-        tensor_data(c, "elastic_stiffness")
+    c[2, 3] = np.nan             # c34 still given by its twin c43
+    d = tensor_data(c, "elastic_stiffness")
+    assert d.is_complete and d["c34"] == 0.0
+    c[3, 2] = np.nan             # now neither entry gives it
+    d = tensor_data(c, "elastic_stiffness")
+    assert not d.is_complete and d.n_given == 20 and np.isnan(d["c34"])
+    assert np.isnan(d.voigt[2, 3]) and np.isnan(d.voigt[3, 2])
     c[2, 3] = np.inf
-    with pytest.raises(DataError, match="contains inf"):
+    with pytest.raises(DataError, match=r"contains inf .* at entry \(3, 4\)"):
         tensor_data(c, "elastic_stiffness")
 
 
@@ -131,7 +136,7 @@ def test_bad_sigma_and_covariance():
     with pytest.raises(DataError, match="strictly positive"):
         tensor_data(c, "elastic_stiffness", sigma=s)
     s[4, 4] = np.nan
-    with pytest.raises(DataError, match="sigma contains NaN"):
+    with pytest.raises(DataError, match=r"sigma is NaN \(unknown\) for c55, whose value is given"):
         tensor_data(c, "elastic_stiffness", sigma=s)
     with pytest.raises(DataError, match="either sigma .* or covariance"):
         tensor_data(c, "elastic_stiffness", sigma=np.ones((6, 6)), covariance=np.eye(21))
