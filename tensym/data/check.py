@@ -23,8 +23,47 @@ in one of two stated norms:
     and its p-value P(chi2_{n-k} > chi2).
 
 Whatever the norm, ``residual_fraction`` is ||t - t_sym||_F / ||t||_F in the
-full-tensor Frobenius norm (every index tuple counted, not the Voigt matrix),
-0 for an all-zero tensor.
+full-tensor Frobenius norm (every index tuple counted, not the Voigt matrix).
+
+Partial data
+    A component that is not given is NaN in the data (unknown, never zero;
+    write 0 for a component known to be zero).  The fit above runs over the
+    given components only (the rows of A, x and W of the given ones), the
+    residual and the deviations are taken over them, dof = n_given - k, and
+    forbidden components and relations are tested only where the data give
+    them (a relation needs its tied component and the independent components
+    it names).  When the given components do not determine the constants
+    (A restricted to them has rank < k) the check is refused, naming the loose
+    constants.  The report says how many components were given; the breakdown
+    by irrep and the misorientation need the whole residual and are omitted.
+
+Verdict
+    ``'empty'`` when every given component is zero: an all-zero tensor fits
+    every group, so there is nothing to check (``passes`` is False).
+    Otherwise, with ``tol_kind='relative'``: residual_fraction <= tol *and*,
+    per component, max over the given components of |x - x_sym| <=
+    component_tol * max |x_sym| (Voigt units; component_tol defaults to
+    tol / 2, so that a forbidden c15 of 1 % of c11 fails even though the
+    whole-tensor fraction is below 1 %); with ``tol_kind='absolute'``:
+    max |x - x_sym| <= tol in the data's units (a bound on every component).
+    With uncertainties the chi-square test must pass as well.
+
+Physical sanity
+    For the properties in :data:`DEFINITE_PROPERTIES` (elastic stiffness and
+    compliance, dielectric permittivity and impermeability, thermal and
+    electrical conductivity) the report gives the eigenvalues of the
+    symmetrized tensor as a symmetric map (the 6x6 elastic matrix in Mandel
+    form, shear rows and columns times sqrt 2, so that its eigenvalues are
+    those of c_ijkl on symmetric tensors) and warns when one is not positive:
+    a stiffness that is not positive definite is mechanically unstable.  The
+    warning does not change the verdict, which is about symmetry.  Thermal
+    expansion, susceptibility and the Seebeck tensor may be negative and get
+    no such test.
+
+Magnitude
+    The numbers are worked on in a copy scaled by a power of two (exact) so
+    that the results do not depend on the magnitude of the units; values
+    from 1e-300 to 1e300 give the same verdicts (tested).
 
 Forbidden components are those the form sets to zero; broken relations are
 the other tied components, each compared with its relation evaluated on the
@@ -63,7 +102,7 @@ import numbers
 import numpy as np
 import sympy as sp
 
-from tensym.data.dataset import TensorData, _as_float_array, _check_finite, _to_components, tensor_data
+from tensym.data.dataset import TensorData, _as_float_array, _check_finite, _exponent, _to_components, tensor_data
 from tensym.data.irreps import isotypic_projectors
 from tensym.data.model import lie_derivative, layout as _layout, numeric_form
 from tensym.data.stats import chi2_sf
@@ -80,6 +119,8 @@ __all__ = [
     "check_tensor",
     "check_tensors",
     "TOL_KINDS",
+    "VERDICTS",
+    "DEFINITE_PROPERTIES",
 ]
 
 #: Accepted values of ``tol_kind``.
@@ -234,9 +275,10 @@ class CheckReport:
     constants_covariance : numpy.ndarray or None
         float64 (k, k) propagated covariance of the constants.
     forbidden : tuple of ForbiddenComponent
-        Every component the symmetry requires to vanish.
+        Every *given* component the symmetry requires to vanish.
     relations : tuple of RelationCheck
-        Every other tied component.
+        Every other tied component that can be checked: it is given, and so
+        are the independent components of its relation.
     symmetrized : numpy.ndarray
         float64 Voigt array of the fitted symmetric tensor.
     symmetrized_sigma : numpy.ndarray or None
@@ -250,7 +292,12 @@ class CheckReport:
     chi2, p_value : float or None
         With uncertainties: chi-square of the fit and P(chi2_dof > chi2).
     dof : int
-        n - k (distinct components minus constants).
+        n_given - k (given distinct components minus constants).
+    n_given : int
+        Number of distinct components given (out of ``data.n``); the fit and
+        the tests use only these (see the module notes on partial data).
+    not_given : tuple of str
+        Labels of the components that are not given (unknown, never taken as zero).
     irreps : tuple of IrrepResidual
         Residual by irrep: every irrep of the tensor space except the trivial
         one (dropped by its label, so the tuple is complete when the space has
@@ -260,6 +307,8 @@ class CheckReport:
         black-and-white group, labels with the time parity for a grey one
         (``B1g-``).
     misorientation : float
+        (NaN with unknown components, like the irrep breakdown, which is then
+        empty: both need the whole residual tensor.)
         First-order angle in degrees of the rotation R_w that best explains the
         residual: data ~ R_w . t_sym (active; valid for a few degrees).
         ``tensym.orient`` would return about R_w^T.
@@ -267,19 +316,41 @@ class CheckReport:
         float64 (3,) unit axis of that rotation (z when the angle is 0).
     rotation_fraction : float
         Frobenius norm of the residual part that rotation explains, over ||t||_F.
+    component_deviation : float
+        Largest |data - symmetrized| over the given components divided by the
+        largest allowed magnitude max |symmetrized| (Voigt units; inf when the
+        group allows nothing but the data are not zero).
     tol : float
         Tolerance of the verdict.
     tol_kind : str
-        'relative' (tol bounds residual_fraction, dimensionless) or 'absolute'
-        (tol bounds max_deviation, in the data's units).
+        'relative' (tol bounds residual_fraction, dimensionless, and
+        component_tol bounds component_deviation) or 'absolute' (tol bounds
+        max_deviation, in the data's units: a bound on every component).
+    component_tol : float or None
+        The per-component bound of the relative verdict (None with 'absolute').
     alpha : float
         Significance level of the chi-square test (used with uncertainties).
     passes : bool
-        The verdict: within tolerance and (with uncertainties) p_value >= alpha.
+        The verdict: within tolerance and (with uncertainties) p_value >= alpha;
+        False when the verdict is 'empty'.
     verdict : str
-        'consistent' or 'inconsistent'.
+        'consistent', 'inconsistent', or 'empty' when every given component is
+        zero (an all-zero tensor fits every group: there is nothing to check).
     reasons : tuple of str
         The criteria and how each came out.
+    eigenvalues : numpy.ndarray or None
+        float64 (m,) ascending, in the data's units: for the properties of
+        :data:`DEFINITE_PROPERTIES`, the eigenvalues of the symmetrized tensor
+        as a symmetric map (the 6x6 elastic matrix in Mandel form, shear rows
+        and columns times sqrt 2 for a stiffness and divided by sqrt 2 for a
+        compliance; the 3x3 matrix of a rank-2 property); None otherwise.
+    positive_definite : bool or None
+        Every eigenvalue > 1e-10 times the largest |eigenvalue| (None when not
+        applicable).
+    warnings : tuple of str
+        Physical-sanity warnings (a stiffness that is not positive definite is
+        mechanically unstable); they do not change the verdict, which is about
+        symmetry.
     data : TensorData
         The checked data.
     form : TensorForm
@@ -320,6 +391,13 @@ class CheckReport:
     passes: bool
     verdict: str
     reasons: tuple
+    n_given: int
+    not_given: tuple
+    component_deviation: float
+    component_tol: float
+    eigenvalues: np.ndarray
+    positive_definite: bool
+    warnings: tuple
     data: TensorData = field(repr=False)
     form: object = field(repr=False)
 
@@ -380,14 +458,23 @@ def _group(group):
     return as_group(group)
 
 
-def _options(tol, tol_kind, alpha):
+def _options(tol, tol_kind, alpha, component_tol=None):
     if tol_kind not in TOL_KINDS:
         raise InvalidOptionError(f"tol_kind={tol_kind!r} is not one of {', '.join(TOL_KINDS)}")
     if isinstance(tol, bool) or not isinstance(tol, numbers.Real) or not math.isfinite(tol) or tol < 0:
         raise DataError(f"tol must be a finite number >= 0, got {tol!r}")
     if isinstance(alpha, bool) or not isinstance(alpha, numbers.Real) or not 0 < alpha < 1:
         raise DataError(f"alpha must be a significance level in (0, 1), got {alpha!r}")
-    return float(tol), tol_kind, float(alpha)
+    if component_tol is not None:
+        if tol_kind == "absolute":
+            raise DataError("component_tol belongs to tol_kind='relative'; with tol_kind='absolute' tol itself "
+                            "bounds every component's deviation (in the data's units)")
+        if isinstance(component_tol, bool) or not isinstance(component_tol, numbers.Real) or \
+                not math.isfinite(component_tol) or component_tol < 0:
+            raise DataError(f"component_tol must be a finite number >= 0 (relative to the largest allowed "
+                            f"magnitude), got {component_tol!r}")
+    ctol = None if tol_kind == "absolute" else float(tol) / 2 if component_tol is None else float(component_tol)
+    return float(tol), tol_kind, float(alpha), ctol
 
 
 def _group_name(g):
@@ -435,29 +522,117 @@ def _lie_matrices(lay):
         for L in _LIE:
             dt = lie_derivative(t, L, lay.rank)
             mats.append((lay.scale[:, None] * lay.full_to_x(dt).T))
-        _LIE_CACHE[key] = np.array(mats)
+        arr = np.array(mats)
+        arr.setflags(write=False)  # process-wide cache
+        _LIE_CACHE[key] = arr
     return _LIE_CACHE[key]
 
 
-def _fit_single(nf, x, cov):
-    """Constants, their covariance, fitted x and chi2 for one tensor."""
+#: Properties whose tensor must be positive definite, and why (see ``CheckReport.eigenvalues``).
+DEFINITE_PROPERTIES = {
+    "elastic_stiffness": "mechanical stability: the strain energy c_ijkl e_ij e_kl / 2 is positive for every "
+                         "strain (Mouhat & Coudert, Phys. Rev. B 90, 224104 (2014))",
+    "elastic_compliance": "mechanical stability: the compliance is the inverse of a positive definite stiffness",
+    "dielectric_permittivity": "dielectric stability of an insulating crystal: the electrostatic energy is "
+                               "positive (static or low-frequency permittivity; near a resonance or in a metal "
+                               "at optical frequencies a negative value is physical, then ignore this)",
+    "dielectric_impermeability": "the impermeability is the inverse of a positive definite permittivity",
+    "thermal_conductivity": "the second law: heat flows from hot to cold, so the entropy production "
+                            "k_ij g_i g_j / T^2 is positive for every temperature gradient g",
+    "electrical_conductivity": "Joule heating sigma_ij E_i E_j is positive for every field E",
+}
+_W6 = np.array([1.0, 1.0, 1.0, math.sqrt(2.0), math.sqrt(2.0), math.sqrt(2.0)])
+_W66 = np.outer(_W6, _W6)
+_PD_REL = 1e-10
+
+
+def _eigenvalues(prop, lay, x):
+    """Eigenvalues (..., m), ascending, of the tensors x (..., n) as symmetric maps, or None."""
+    if prop.name not in DEFINITE_PROPERTIES:
+        return None
+    v = lay.x_to_voigt(x)
+    if prop.name == "elastic_stiffness":
+        m = v * _W66  # Mandel form: the eigenvalues are those of c_ijkl on symmetric tensors
+    elif prop.name == "elastic_compliance":
+        m = v / _W66  # s_44 = 4 s_2323 (Voigt factors): Mandel s_44 / 2 = 2 s_2323
+    else:
+        m = 0.5 * (v + np.swapaxes(v, -1, -2))
+    return np.linalg.eigvalsh(m)
+
+
+def _is_positive_definite(eig):
+    big = np.max(np.abs(eig), axis=-1)
+    return np.min(eig, axis=-1) > _PD_REL * big
+
+
+def _definite_warning(prop, eig, units):
+    u = f" {units}" if units else ""
+    vals = ", ".join(f"{v:.4g}" for v in eig)
+    if prop.name in ("elastic_stiffness", "elastic_compliance"):
+        what = (f"the {prop.name.replace('_', ' ')} is not positive definite: the crystal would be mechanically "
+                "unstable; eigenvalues of the 6x6 matrix in Mandel form (shear rows and columns "
+                f"{'times' if prop.name == 'elastic_stiffness' else 'divided by'} sqrt 2): {vals}{u}")
+    else:
+        what = f"the {prop.name.replace('_', ' ')} is not positive definite; eigenvalues: {vals}{u}"
+    return f"{what}; every eigenvalue must be > 0 for {DEFINITE_PROPERTIES[prop.name]}"
+
+
+def _undetermined(nf, known):
+    """Names of the constants the given components do not fix (empty when they fix them all)."""
+    if nf.k == 0:
+        return ()
+    ak = nf.A[known]
+    if ak.shape[0] == 0:
+        return tuple(nf.names)
+    _, sv, vt = np.linalg.svd(ak, full_matrices=True)
+    rank = int(np.sum(sv > 1e-9 * max(1.0, float(sv[0]) if sv.size else 1.0)))
+    if rank == nf.k:
+        return ()
+    null = vt[rank:]
+    loose = np.max(np.abs(null), axis=0) > 1e-9
+    return tuple(nm for nm, bad in zip(nf.names, loose) if bad)
+
+
+def _undetermined_error(nf, known, loose, group_name, lay, where=""):
+    missing = [lay.labels[c] for c in np.flatnonzero(~known)]
+    return DataError(
+        f"the given components{where} ({int(known.sum())} of the {lay.n} of {lay.prop.name}) do not determine the "
+        f"constants of {group_name}: {', '.join(loose)} {'is' if len(loose) == 1 else 'are'} not fixed by any given "
+        f"component (not given: {', '.join(missing[:8])}{', ...' if len(missing) > 8 else ''}); give the "
+        "components that fix them, or write 0 explicitly for a component known to be zero (a component that is "
+        "not given is unknown, never taken as zero)")
+
+
+def _fit_single(nf, x, cov, known):
+    """Constants, their covariance, fitted x and chi2 for one tensor, from its given components only.
+
+    ``x`` and ``cov`` are the scaled copies (unknown entries set to 0, ignored).
+    """
     lay = nf.layout
+    complete = bool(known.all())
+    kk = np.flatnonzero(known)
+    ak = nf.A[kk]
     if cov is None:
-        a = nf.fit @ x
+        if complete:
+            a = nf.fit @ x
+        elif nf.k:
+            wk = lay.weight[kk]
+            a = np.linalg.solve(ak.T @ (wk[:, None] * ak), ak.T @ (wk * x[kk]))
+        else:
+            a = np.zeros(0)
         return a, None, nf.A @ a, None
-    w = np.linalg.inv(cov)
+    w = np.linalg.inv(cov[np.ix_(kk, kk)])
     w = 0.5 * (w + w.T)
     if nf.k:
-        gram = nf.A.T @ w @ nf.A
+        gram = ak.T @ w @ ak
         cov_a = np.linalg.inv(gram)
         cov_a = 0.5 * (cov_a + cov_a.T)
-        a = cov_a @ (nf.A.T @ w @ x)
+        a = cov_a @ (ak.T @ w @ x[kk])
     else:
         cov_a, a = np.zeros((0, 0)), np.zeros(0)
     xf = nf.A @ a
-    r = x - xf
+    r = (x - xf)[kk]
     chi2 = float(r @ w @ r)
-    del lay
     return a, cov_a, xf, chi2
 
 
@@ -485,8 +660,21 @@ def _misorientation(lay, nf, y, y_fit):
     return math.degrees(ang), axis, part
 
 
+def _component_deviation(res, xf, known):
+    """(largest |res| over given components / max |xf|, index of that component, index of the max |xf|)."""
+    dev = np.where(known, np.abs(res), 0.0)
+    i = int(np.argmax(dev)) if dev.size else 0
+    ref = np.abs(xf)
+    j = int(np.argmax(ref)) if ref.size else 0
+    top = float(ref[j]) if ref.size else 0.0
+    d = float(dev[i]) if dev.size else 0.0
+    if top > 0:
+        return d / top, i, j
+    return (math.inf if d > 0 else 0.0), i, j
+
+
 def check_tensor(values, what=None, group=None, *, sigma=None, covariance=None, units=None, tol=0.01,
-                 tol_kind="relative", alpha=0.05, layout="auto", symmetry_tol=1e-8):
+                 tol_kind="relative", alpha=0.05, component_tol=None, layout="auto", symmetry_tol=1e-8):
     """Check a numeric tensor against a point group: forbidden components, relations, fit, verdict.
 
     Parameters
@@ -494,6 +682,7 @@ def check_tensor(values, what=None, group=None, *, sigma=None, covariance=None, 
     values : array_like or TensorData
         Voigt array (with the property's factor convention), full Cartesian
         array, or a TensorData (``tensym.tensor_data``, ``tensym.read_tensor``).
+        NaN marks a component that is not given (unknown, never zero).
     what : str, Property or TensorSpec
         The property (not needed for a TensorData).
     group : group object or str
@@ -504,9 +693,18 @@ def check_tensor(values, what=None, group=None, *, sigma=None, covariance=None, 
         Tolerance of the verdict (see ``tol_kind``); default 0.01.
     tol_kind : {'relative', 'absolute'}
         'relative': ``residual_fraction <= tol`` (dimensionless, full-tensor
-        Frobenius norm); 'absolute': ``max_deviation <= tol`` in the data's units.
+        Frobenius norm) *and* ``component_deviation <= component_tol``;
+        'absolute': ``max_deviation <= tol`` in the data's units (a bound on
+        every component).
     alpha : float
         With uncertainties the verdict also needs ``p_value >= alpha`` (default 0.05).
+    component_tol : float, optional
+        Per-component bound of the relative verdict: every given component's
+        deviation from the symmetric fit (a forbidden component's value, a tied
+        component's miss) must be at most ``component_tol`` times the largest
+        allowed magnitude max |symmetrized| (Voigt units).  Default ``tol / 2``
+        (0.005: a forbidden c15 of 1 % of c11 fails).  Only with
+        ``tol_kind='relative'``.
 
     Returns
     -------
@@ -516,7 +714,9 @@ def check_tensor(values, what=None, group=None, *, sigma=None, covariance=None, 
     ------
     DataError
         For invalid data (see ``tensym.tensor_data``), a missing group or
-        property, or a tolerance/alpha out of range.
+        property, a tolerance/alpha out of range, ``component_tol`` with
+        ``tol_kind='absolute'``, or given components that do not determine
+        the constants of the group (the message says how to mark a zero).
     InvalidOptionError
         For a ``tol_kind`` or ``layout`` outside its set.
     UnknownGroupError, UnknownPropertyError
@@ -534,8 +734,10 @@ def check_tensor(values, what=None, group=None, *, sigma=None, covariance=None, 
     [('d15', 30.0, 0.3536), ('d31', -8.0, 0.3536), ('d33', 20.0, 0.5)]
     >>> rep.chi2, rep.dof, rep.passes
     (0.0, 15, True)
+    >>> tensym.check_tensor(np.zeros((3, 6)), "piezoelectric_d", "6mm").verdict
+    'empty'
     """
-    tol, tol_kind, alpha = _options(tol, tol_kind, alpha)
+    tol, tol_kind, alpha, ctol = _options(tol, tol_kind, alpha, component_tol)
     if isinstance(values, TensorData):
         data = tensor_data(values, what, sigma=sigma, covariance=covariance, units=units)
     else:
@@ -546,49 +748,87 @@ def check_tensor(values, what=None, group=None, *, sigma=None, covariance=None, 
     lay = _layout(prop)
     nf = numeric_form(prop, g)
     x = np.asarray(data.components)
+    known = np.asarray(data.known)
+    complete = bool(known.all())
+    n_given = int(known.sum())
+    not_given = tuple(lay.labels[c] for c in np.flatnonzero(~known))
     cov = None if data.covariance is None else np.asarray(data.covariance)
-    a, cov_a, xf, chi2 = _fit_single(nf, x, cov)
     norm = "frobenius" if cov is None else "inverse covariance"
+    e = _exponent(x)
+    if e is None:
+        return _empty_report(data, g, nf, norm, tol, tol_kind, ctol, alpha, n_given, not_given)
+    if not complete:
+        loose = _undetermined(nf, known)
+        if loose:
+            raise _undetermined_error(nf, known, loose, _group_name(g), lay)
+    xs = np.ldexp(np.where(known, x, 0.0), -e)  # the scaled copy (see _exponent)
+    both = known[:, None] & known[None, :]
+    covs = None if cov is None else np.ldexp(np.where(both, cov, 0.0), -2 * e)
+    a_s, cov_as, xf_s, chi2 = _fit_single(nf, xs, covs, known)
+    a = np.ldexp(a_s, e)
+    cov_a = None if cov_as is None else np.ldexp(cov_as, 2 * e)
     sig_a = None if cov_a is None else np.sqrt(np.maximum(np.diag(cov_a), 0.0))
     constants = tuple(FittedConstant(nm, sym, float(a[i]), None if sig_a is None else float(sig_a[i]))
                       for i, (nm, sym) in enumerate(zip(nf.names, nf.form.symbols)))
     sig_x = None if cov is None else np.sqrt(np.diag(cov))
     forbidden = []
     for c in nf.zero:
+        if not known[c]:
+            continue
         v = float(x[c])
         s = None if sig_x is None else float(sig_x[c])
         forbidden.append(ForbiddenComponent(lay.labels[c], v, s, None if s is None else abs(v) / s))
     relations = []
-    gmat = _constraint_matrix(nf, nf.tied)
-    disc = gmat @ x
-    dvar = None if cov is None else np.einsum("ri,ij,rj->r", gmat, cov, gmat)
-    for r, c in enumerate(nf.tied):
+    tied = [c for c in nf.tied if known[c] and all(known[nf.free[nf.A[c] != 0]])]
+    gmat = _constraint_matrix(nf, tied)
+    disc = np.ldexp(gmat @ xs, e)
+    dsig = None if covs is None else np.ldexp(np.sqrt(np.maximum(np.einsum("ri,ij,rj->r", gmat, covs, gmat), 0.0)), e)
+    for r, c in enumerate(tied):
         lab = lay.labels[c]
         d = float(disc[r])
-        s = None if dvar is None else float(math.sqrt(max(dvar[r], 0.0)))
+        s = None if dsig is None else float(dsig[r])
         relations.append(RelationCheck(lab, nf.relations.get(lab), float(x[c]), float(x[c]) - d, d, s,
                                        None if not s else abs(d) / s))
-    y = lay.scale * x
+    y = lay.scale * xs
     ynorm = float(np.linalg.norm(y))
-    res = x - xf
-    frac = float(np.linalg.norm(lay.scale * res)) / ynorm if ynorm > 0 else 0.0
-    maxdev = float(np.max(np.abs(res))) if res.size else 0.0
-    dof = lay.n - nf.k
+    res_s = np.where(known, xs - xf_s, 0.0)
+    frac = float(np.linalg.norm(lay.scale * res_s)) / ynorm
+    maxdev = float(np.ldexp(np.max(np.abs(res_s)), e)) if res_s.size else 0.0
+    dof = n_given - nf.k
     p = None
     if chi2 is not None and dof > 0:
         p = float(chi2_sf(chi2, dof))
-    parts = []
-    for pr in _residual_projectors(prop, g):
-        f = float(np.linalg.norm(pr.basis.T @ y)) / ynorm if ynorm > 0 else 0.0
-        parts.append(IrrepResidual(pr.label, pr.dim, pr.multiplicity, f, pr.rotation_like))
-    irreps = tuple(parts)
-    y_fro = nf.Q @ (nf.Q.T @ y)
-    ang, axis, part = _misorientation(lay, nf, y, y_fro)
+    if complete:
+        parts = []
+        for pr in _residual_projectors(prop, g):
+            f = float(np.linalg.norm(pr.basis.T @ y)) / ynorm
+            parts.append(IrrepResidual(pr.label, pr.dim, pr.multiplicity, f, pr.rotation_like))
+        irreps = tuple(parts)
+        y_fro = nf.Q @ (nf.Q.T @ y)
+        ang, axis, part = _misorientation(lay, nf, y, y_fro)
+        rot_frac = part / ynorm
+    else:  # the breakdown needs the whole residual tensor
+        irreps, ang, axis, rot_frac = (), math.nan, np.full(3, math.nan), math.nan
     sym_sigma = None
     if cov_a is not None:
-        cxf = nf.A @ cov_a @ nf.A.T
-        sym_sigma = np.abs(lay.x_to_voigt(np.sqrt(np.maximum(np.diag(cxf), 0.0))))
-    passes, reasons = _verdict(frac, maxdev, p, chi2, dof, tol, tol_kind, alpha, data.units)
+        cxf = nf.A @ cov_as @ nf.A.T
+        sym_sigma = np.ldexp(np.abs(lay.x_to_voigt(np.sqrt(np.maximum(np.diag(cxf), 0.0)))), e)
+    cdev, worst, top = _component_deviation(res_s, xf_s, known)
+    comp = (cdev, lay.labels[worst], float(np.ldexp(abs(res_s[worst]), e)), lay.labels[top],
+            float(np.ldexp(abs(xf_s[top]), e)))
+    passes, reasons = _verdict(frac, maxdev, comp, p, chi2, dof, tol, tol_kind, ctol, alpha, data.units)
+    if not complete:
+        reasons = reasons + (f"components given: {n_given} of {lay.n}; the fit and the tests use only these "
+                             "(the others are unknown, not zero)",)
+    eig = _eigenvalues(prop, lay, xf_s)
+    pd, warns = None, ()
+    if eig is not None:
+        pd = bool(_is_positive_definite(eig))
+        with np.errstate(over="ignore"):  # an eigenvalue past 1.8e308 is inf (the fit itself is scaled)
+            eig = np.ldexp(eig, e)
+        if not pd:
+            warns = (_definite_warning(prop, eig, data.units),)
+    res_v = lay.x_to_voigt(np.where(known, np.ldexp(res_s, e), np.nan))
     return CheckReport(
         property=prop.name,
         group=_group_name(g),
@@ -599,9 +839,9 @@ def check_tensor(values, what=None, group=None, *, sigma=None, covariance=None, 
         constants_covariance=_ro(cov_a),
         forbidden=tuple(forbidden),
         relations=tuple(relations),
-        symmetrized=_ro(lay.x_to_voigt(xf)),
+        symmetrized=_ro(np.ldexp(lay.x_to_voigt(xf_s), e)),
         symmetrized_sigma=_ro(sym_sigma),
-        residual=_ro(lay.x_to_voigt(res)),
+        residual=_ro(res_v),
         residual_fraction=frac,
         max_deviation=maxdev,
         chi2=chi2,
@@ -610,27 +850,66 @@ def check_tensor(values, what=None, group=None, *, sigma=None, covariance=None, 
         irreps=irreps,
         misorientation=ang,
         misorientation_axis=_ro(axis),
-        rotation_fraction=part / ynorm if ynorm > 0 else 0.0,
+        rotation_fraction=rot_frac,
         tol=tol,
         tol_kind=tol_kind,
         alpha=alpha,
         passes=passes,
         verdict="consistent" if passes else "inconsistent",
         reasons=reasons,
+        n_given=n_given,
+        not_given=not_given,
+        component_deviation=cdev,
+        component_tol=ctol,
+        eigenvalues=_ro(eig),
+        positive_definite=pd,
+        warnings=warns,
         data=data,
         form=nf.form,
     )
 
 
-def _verdict(frac, maxdev, p, chi2, dof, tol, tol_kind, alpha, units):
+_EMPTY_REASON = ("every given component is zero: an all-zero tensor is consistent with every group, so there is "
+                 "nothing to check (verdict 'empty')")
+
+
+def _empty_report(data, g, nf, norm, tol, tol_kind, ctol, alpha, n_given, not_given):
+    """The report of data whose given components are all zero (verdict 'empty', passes False)."""
+    lay = nf.layout
+    known = np.asarray(data.known)
+    sig_x = None if data.covariance is None else np.sqrt(np.diag(np.asarray(data.covariance)))
+    forbidden = tuple(ForbiddenComponent(lay.labels[c], 0.0, None if sig_x is None else float(sig_x[c]),
+                                         None if sig_x is None else 0.0) for c in nf.zero if known[c])
+    zeros = np.zeros(lay.n)
+    return CheckReport(
+        property=lay.prop.name, group=_group_name(g), setting=getattr(g, "setting", ""), units=data.units,
+        norm=norm,
+        constants=tuple(FittedConstant(nm, sym, 0.0, None) for nm, sym in zip(nf.names, nf.form.symbols)),
+        constants_covariance=None, forbidden=forbidden, relations=(),
+        symmetrized=_ro(lay.x_to_voigt(zeros)), symmetrized_sigma=None,
+        residual=_ro(lay.x_to_voigt(np.where(known, 0.0, np.nan))), residual_fraction=0.0, max_deviation=0.0,
+        chi2=None, dof=n_given - nf.k, p_value=None, irreps=(), misorientation=0.0,
+        misorientation_axis=_ro([0.0, 0.0, 1.0]), rotation_fraction=0.0, tol=tol, tol_kind=tol_kind, alpha=alpha,
+        passes=False, verdict="empty", reasons=(_EMPTY_REASON,), n_given=n_given, not_given=not_given,
+        component_deviation=0.0, component_tol=ctol, eigenvalues=None, positive_definite=None, warnings=(),
+        data=data, form=nf.form)
+
+
+def _verdict(frac, maxdev, comp, p, chi2, dof, tol, tol_kind, ctol, alpha, units):
     reasons = []
+    u = f" {units}" if units else ""
     if tol_kind == "relative":
         ok = frac <= tol
         reasons.append(f"residual fraction {frac:.3g} {'<=' if ok else '>'} tol {tol:g} "
                        "(relative, full-tensor Frobenius norm)")
+        cdev, worst, dev, top, ref = comp
+        ok_c = cdev <= ctol
+        reasons.append(f"largest component deviation {dev:.4g}{u} ({worst}) is {cdev:.3g} of the largest allowed "
+                       f"magnitude {ref:.4g}{u} ({top}), {'<=' if ok_c else '>'} component_tol {ctol:g} "
+                       "(relative, per component, Voigt units)")
+        ok = ok and ok_c
     else:
         ok = maxdev <= tol
-        u = f" {units}" if units else ""
         reasons.append(f"largest deviation {maxdev:.4g}{u} {'<=' if ok else '>'} tol {tol:g}{u} (absolute)")
     if p is not None:
         ok_p = p >= alpha
@@ -642,9 +921,16 @@ def _verdict(frac, maxdev, p, chi2, dof, tol, tol_kind, alpha, units):
 
 
 # --- batch ---------------------------------------------------------------------------------
+#: Verdicts of a batch row (and of a CheckReport).
+VERDICTS = ("consistent", "inconsistent", "empty")
+
+
 @dataclass(frozen=True, eq=False)
 class BatchCheck:
     """The result of :func:`check_tensors`: N tensors against one group (arrays read-only).
+
+    ``str()`` and :meth:`text` give a summary (counts per verdict, the worst
+    cases); :meth:`table` gives the full table, one row per tensor.
 
     Attributes
     ----------
@@ -660,25 +946,44 @@ class BatchCheck:
         float64 (N, n) fitted symmetric tensors as distinct components (the
         order of ``tensym.component_labels``); :attr:`symmetrized` gives Voigt arrays.
     residual_fraction : numpy.ndarray
-        float64 (N,), full-tensor Frobenius norms.
+        float64 (N,), full-tensor Frobenius norms over the given components.
     max_deviation : numpy.ndarray
-        float64 (N,) largest |data - symmetrized| per tensor (data units).
+        float64 (N,) largest |data - symmetrized| per tensor over the given
+        components (data units).
+    component_deviation : numpy.ndarray
+        float64 (N,) max_deviation over the largest allowed magnitude
+        max |symmetrized| (as CheckReport.component_deviation).
     forbidden_labels : tuple of str
     forbidden : numpy.ndarray
-        float64 (N, len(forbidden_labels)) values of the forbidden components.
+        float64 (N, len(forbidden_labels)) values of the forbidden components
+        (NaN where not given).
     relation_labels : tuple of str
     discrepancies : numpy.ndarray
         float64 (N, len(relation_labels)) tied component minus its relation on
-        the measured constants.
+        the measured constants (NaN where a component it needs is not given).
     chi2, p_value : numpy.ndarray or None
         float64 (N,) with uncertainties.
     dof : int
+        n - k, the degrees of freedom of a complete tensor; tensor i has
+        ``n_given[i] - k``.
+    n_given : numpy.ndarray
+        int64 (N,) number of distinct components given per tensor.
     irrep_labels : tuple of str
     irrep_fractions : numpy.ndarray
-        float64 (N, len(irrep_labels)) residual fraction per non-trivial irrep.
+        float64 (N, len(irrep_labels)) residual fraction per non-trivial irrep
+        (NaN for a tensor with unknown components).
+    eigenvalues : numpy.ndarray or None
+        float64 (N, m) ascending eigenvalues of each symmetrized tensor as a
+        symmetric map (as CheckReport.eigenvalues; None for a property
+        outside ``DEFINITE_PROPERTIES``).
+    positive_definite : numpy.ndarray or None
+        bool (N,) every eigenvalue > 1e-10 of the largest |eigenvalue|.
+    verdicts : numpy.ndarray
+        str (N,) 'consistent', 'inconsistent' or 'empty' (every given
+        component zero: nothing to check).
     passes : numpy.ndarray
-        bool (N,) verdicts.
-    tol, tol_kind, alpha
+        bool (N,) verdicts == 'consistent'.
+    tol, tol_kind, alpha, component_tol
         The verdict's criteria (as in CheckReport).
 
     Examples
@@ -687,6 +992,8 @@ class BatchCheck:
     >>> b = check_tensors(np.stack([np.eye(3), np.diag([1.0, 2.0, 3.0])]), "thermal_expansion", "m-3m")
     >>> b.passes.tolist(), b.names, b.constants[:, 0].tolist()
     ([True, False], ('alpha11',), [1.0, 2.0])
+    >>> print(b.text().splitlines()[1])
+      consistent: 1, inconsistent: 1, empty: 0
     """
 
     property: str
@@ -699,6 +1006,7 @@ class BatchCheck:
     symmetrized_components: np.ndarray
     residual_fraction: np.ndarray
     max_deviation: np.ndarray
+    component_deviation: np.ndarray
     forbidden_labels: tuple
     forbidden: np.ndarray
     relation_labels: tuple
@@ -706,12 +1014,17 @@ class BatchCheck:
     chi2: np.ndarray
     dof: int
     p_value: np.ndarray
+    n_given: np.ndarray
     irrep_labels: tuple
     irrep_fractions: np.ndarray
+    eigenvalues: np.ndarray
+    positive_definite: np.ndarray
+    verdicts: np.ndarray
     passes: np.ndarray
     tol: float
     tol_kind: str
     alpha: float
+    component_tol: float
     _inputs: tuple = field(repr=False)
 
     def __len__(self):
@@ -722,22 +1035,45 @@ class BatchCheck:
         """float64 (N, *voigt_shape): the fitted symmetric tensors as Voigt arrays (a new array)."""
         return _layout(self._inputs[2]).x_to_voigt(self.symmetrized_components)
 
+    def counts(self):
+        """dict verdict -> number of tensors, for every verdict in :data:`VERDICTS` (int)."""
+        return {v: int(np.count_nonzero(self.verdicts == v)) for v in VERDICTS}
+
+    def worst(self, count=5):
+        """Indices (int64 array) of the ``count`` tensors with the largest residual fraction, worst first."""
+        if isinstance(count, bool) or not isinstance(count, numbers.Integral) or count < 0:
+            raise DataError(f"count must be an integer >= 0, got {count!r}")
+        key = np.where(self.verdicts == "empty", -np.inf, self.residual_fraction)
+        order = np.argsort(-key, kind="stable")
+        return order[: min(int(count), len(order))]
+
     def report(self, i):
         """The full :class:`CheckReport` of tensor ``i`` (recomputed by :func:`check_tensor`)."""
         values, sigma, what, group = self._inputs
         n = len(self)
         if isinstance(i, bool) or not isinstance(i, numbers.Integral) or not -n <= i < n:
             raise IndexError(f"tensor index {i!r} is outside 0..{n - 1}")
+        opts = {} if self.tol_kind == "absolute" else {"component_tol": self.component_tol}
         return check_tensor(values[i], what, group, sigma=None if sigma is None else sigma[i], units=self.units,
-                            tol=self.tol, tol_kind=self.tol_kind, alpha=self.alpha, layout="components")
+                            tol=self.tol, tol_kind=self.tol_kind, alpha=self.alpha, layout="components", **opts)
 
-    def text(self):
-        """Text table, one row per tensor (rendered by tensym.output through :mod:`tensym.display`)."""
+    def text(self, worst=5):
+        """Summary text: counts per verdict, the criteria, the ``worst`` largest residuals, sanity warnings.
+
+        The full table, one row per tensor, is :meth:`table`.
+        """
+        from tensym.data.render import batch_summary_text
+
+        return batch_summary_text(self, worst)
+
+    def __str__(self):
+        return self.text()
+
+    def table(self):
+        """The full text table, one row per tensor (rendered by tensym.output through :mod:`tensym.display`)."""
         from tensym.display import show
 
         return show(self, "text")
-
-    __str__ = text
 
     def markdown(self):
         """Markdown table, one row per tensor."""
@@ -766,21 +1102,22 @@ class BatchCheck:
 
 
 def check_tensors(values, what, group, *, sigma=None, units=None, tol=0.01, tol_kind="relative", alpha=0.05,
-                  layout="auto", symmetry_tol=1e-8):
+                  component_tol=None, layout="auto", symmetry_tol=1e-8):
     """Check a stack of N tensors against one group in one vectorised pass.
 
     Parameters
     ----------
     values : array_like
         (N, *voigt_shape) Voigt arrays, (N, 3, ..., 3) full arrays, or (with
-        ``layout='components'``) (N, n) distinct components.
+        ``layout='components'``) (N, n) distinct components.  NaN marks a
+        component that is not given (unknown), as in :func:`check_tensor`.
     what : str, Property or TensorSpec
         The property.
     group : group object or str
         The point group (setting of the data).
     sigma : array_like, optional
         Standard uncertainties, the shape of ``values``.
-    units, tol, tol_kind, alpha, layout, symmetry_tol
+    units, tol, tol_kind, alpha, component_tol, layout, symmetry_tol
         As in :func:`check_tensor`.
 
     Returns
@@ -790,9 +1127,11 @@ def check_tensors(values, what, group, *, sigma=None, units=None, tol=0.01, tol_
     Raises
     ------
     DataError
-        For a wrong shape, non-finite values, contradicted index symmetry (the
-        message names the tensor of the stack), non-positive uncertainties,
-        unknown units, or a tolerance out of range.
+        For a wrong shape, values that are not real numbers, inf, contradicted
+        index symmetry (the message names the tensor of the stack),
+        non-positive uncertainties, unknown units, a tolerance out of range,
+        or tensors whose given components do not determine the constants
+        (the message names them).
     InvalidOptionError
         For a ``tol_kind`` or ``layout`` outside its set.
     UnknownGroupError, UnknownPropertyError, InvalidGroupError
@@ -811,7 +1150,7 @@ def check_tensors(values, what, group, *, sigma=None, units=None, tol=0.01, tol_
     from tensym.data.dataset import LAYOUTS
     from tensym.data.units import check_units
 
-    tol, tol_kind, alpha = _options(tol, tol_kind, alpha)
+    tol, tol_kind, alpha, ctol = _options(tol, tol_kind, alpha, component_tol)
     prop = as_property(what)
     g = _group(group)
     lay = _layout(prop)
@@ -836,6 +1175,9 @@ def check_tensors(values, what, group, *, sigma=None, units=None, tol=0.01, tol_
         s_arr = _as_float_array(sigma, "sigma")
         if s_arr.shape != arr.shape:
             raise DataError(f"sigma must have the shape of values {arr.shape}, got {s_arr.shape}")
+    _check_finite(arr, "values", arr.shape, nan_ok=True)
+    if s_arr is not None:
+        _check_finite(s_arr, "sigma", s_arr.shape, nan_ok=True)
     nt = arr.shape[0]
     k, n = nf.k, lay.n
     parts = _residual_projectors(prop, g)
@@ -844,6 +1186,7 @@ def check_tensors(values, what, group, *, sigma=None, units=None, tol=0.01, tol_
     bounds = np.cumsum([0] + [pr.basis.shape[1] for pr in parts])[:-1]
     gmat_t = _constraint_matrix(nf, nf.tied).T
     dof = n - k
+    definite = prop.name in DEFINITE_PROPERTIES
     out_x = np.empty((nt, n))
     out_a = np.empty((nt, k))
     out_sa = None if s_arr is None else np.empty((nt, k))
@@ -851,67 +1194,136 @@ def check_tensors(values, what, group, *, sigma=None, units=None, tol=0.01, tol_
     out_xf = np.empty((nt, n))
     out_frac = np.empty(nt)
     out_dev = np.empty(nt)
+    out_cdev = np.empty(nt)
     out_chi = None if s_arr is None else np.empty(nt)
     out_disc = np.empty((nt, len(nf.tied)))
     out_ir = np.empty((nt, len(parts)))
+    out_given = np.empty(nt, dtype=np.int64)
+    out_empty = np.empty(nt, dtype=bool)
+    out_eig = np.empty((nt, 6 if lay.rank == 4 else 3)) if definite else None
+    out_pd = np.empty(nt, dtype=bool) if definite else None
     live = {"voigt": lay.voigt_comp, "full": lay.flat_comp, "components": np.zeros(n)}[kind] >= 0
     aa = np.einsum("ik,il->ikl", nf.A, nf.A).reshape(n, k * k)
+    rank_ok = {}
     chunk = 1024  # small blocks: cache-resident, and below the size where BLAS starts threads
     for lo in range(0, nt, chunk):
         hi = min(nt, lo + chunk)
+        m = hi - lo
         blk = arr[lo:hi]
-        bad = ~np.isfinite(blk)
-        if bad.any():
-            _check_finite(arr, "values", arr.shape)
         x = _to_components(blk, lay, kind, "values", float(symmetry_tol))
+        if nt > 1 and np.isnan(x).all(axis=1).any():
+            i = lo + int(np.flatnonzero(np.isnan(x).all(axis=1))[0])
+            raise DataError(f"values: tensor {i} of the stack gives no component (every entry NaN, the marker "
+                            "of an unknown component)")
         out_x[lo:hi] = x
+        known = ~np.isnan(x)
+        out_given[lo:hi] = known.sum(axis=1)
+        # a scaled copy per tensor (exact powers of two): results do not depend on the units' magnitude
+        top = np.fmax.reduce(np.abs(np.where(known, x, 0.0)), axis=1)
+        empty = ~(top > 0)
+        out_empty[lo:hi] = empty
+        e = np.where(empty, 0, np.frexp(np.where(empty, 1.0, top))[1]).astype(np.int64)
+        xs = np.ldexp(np.where(known, x, 0.0), -e[:, None])
+        partial = ~known.all(axis=1) & ~empty
+        if partial.any():
+            pats, inv = np.unique(known[partial], axis=0, return_inverse=True)
+            rows = np.flatnonzero(partial)
+            for pi, pat in enumerate(pats):
+                key = pat.tobytes()
+                if key not in rank_ok:
+                    rank_ok[key] = _undetermined(nf, pat)
+                if rank_ok[key]:
+                    bad = lo + rows[np.flatnonzero(inv.reshape(-1) == pi)]
+                    where = (f" of tensor{'s' if len(bad) > 1 else ''} {', '.join(map(str, bad[:6]))}"
+                             f"{', ...' if len(bad) > 6 else ''} of the stack")
+                    raise _undetermined_error(nf, pat, rank_ok[key], _group_name(g), lay, where)
         if s_arr is None:
-            a = x @ nf.fit.T
+            w = np.where(known, lay.weight, 0.0)
+            if known.all():
+                a = xs @ nf.fit.T
+            else:
+                a = np.zeros((m, k))
+                if k:
+                    gram = (np.where(empty[:, None], lay.weight, w) @ aa).reshape(m, k, k)
+                    a = np.linalg.solve(gram, ((w * xs) @ nf.A)[:, :, None])[:, :, 0]
         else:
             sb = s_arr[lo:hi]
-            if not np.all(np.isfinite(sb)):
-                _check_finite(s_arr, "sigma", s_arr.shape)
-            nonpos = (sb.reshape(hi - lo, -1) <= 0) & live
+            nonpos = (sb.reshape(m, -1) <= 0) & live
             if nonpos.any():
                 pos = np.argwhere(nonpos)[0]
                 raise DataError(f"sigma must be strictly positive standard uncertainties; tensor {lo + pos[0]} of "
-                                f"the stack has {sb.reshape(hi - lo, -1)[pos[0], pos[1]]:g}")
+                                f"the stack has {sb.reshape(m, -1)[pos[0], pos[1]]:g}")
             sx = _to_components(sb, lay, kind, "sigma", float(symmetry_tol), positive=True)
+            lacking = known & np.isnan(sx)
+            if lacking.any():
+                pos = np.argwhere(lacking)[0]
+                raise DataError(f"sigma is NaN (unknown) for {lay.labels[pos[1]]} of tensor {lo + pos[0]} of the "
+                                "stack, whose value is given; give an uncertainty for every given component")
+            sx = np.where(known, sx, np.nan)
             out_sx[lo:hi] = sx
-            w = 1.0 / sx**2
+            sxs = np.ldexp(np.where(known, sx, 1.0), -e[:, None])
+            with np.errstate(divide="ignore", over="ignore"):
+                w = np.where(known, 1.0 / sxs**2, 0.0)
+            if not np.all(np.isfinite(w)):
+                raise DataError("sigma: uncertainties far below the values (by more than a factor 1e150) have "
+                                "squares outside the float64 range")
             if k:
-                gram = (w @ aa).reshape(hi - lo, k, k)  # A^T diag(w) A for every tensor at once
+                gram = (np.where(empty[:, None], 1.0, w) @ aa).reshape(m, k, k)  # A^T diag(w) A for every tensor
                 cov_a = np.linalg.inv(gram)
-                a = np.matmul(cov_a, ((w * x) @ nf.A)[:, :, None])[:, :, 0]
-                out_sa[lo:hi] = np.sqrt(np.maximum(np.diagonal(cov_a, axis1=1, axis2=2), 0.0))
+                a = np.matmul(cov_a, ((w * xs) @ nf.A)[:, :, None])[:, :, 0]
+                out_sa[lo:hi] = np.ldexp(np.sqrt(np.maximum(np.diagonal(cov_a, axis1=1, axis2=2), 0.0)),
+                                         e[:, None])
             else:
-                a = np.zeros((hi - lo, 0))
-        out_a[lo:hi] = a
+                a = np.zeros((m, 0))
+        out_a[lo:hi] = np.ldexp(a, e[:, None])
         xf = a @ nf.A.T
-        out_xf[lo:hi] = xf
-        res = x - xf
-        y = x * lay.scale
+        out_xf[lo:hi] = np.ldexp(xf, e[:, None])
+        res = np.where(known, xs - xf, 0.0)
+        y = xs * lay.scale
         ynorm = np.sqrt(np.einsum("ni,ni->n", y, y))
         safe = np.where(ynorm > 0, ynorm, 1.0)
         rs = res * lay.scale
         out_frac[lo:hi] = np.where(ynorm > 0, np.sqrt(np.einsum("ni,ni->n", rs, rs)) / safe, 0.0)
-        out_dev[lo:hi] = np.max(np.abs(res), axis=1) if n else 0.0
+        dev = np.max(np.abs(res), axis=1) if n else np.zeros(m)
+        out_dev[lo:hi] = np.ldexp(dev, e)
+        ref = np.max(np.abs(xf), axis=1) if n else np.zeros(m)
+        with np.errstate(divide="ignore", invalid="ignore"):
+            out_cdev[lo:hi] = np.where(ref > 0, dev / np.where(ref > 0, ref, 1.0), np.where(dev > 0, np.inf, 0.0))
         if s_arr is not None:
             out_chi[lo:hi] = np.einsum("ni,ni->n", res, res * w)
-        out_disc[lo:hi] = x @ gmat_t
+        out_disc[lo:hi] = np.ldexp(np.where(known, xs, np.nan) @ gmat_t, e[:, None]) if gmat_t.size else \
+            np.zeros((m, 0))
         if parts:
             proj = y @ big
-            out_ir[lo:hi] = np.sqrt(np.add.reduceat(proj * proj, bounds, axis=1)) / safe[:, None]
+            fr = np.sqrt(np.add.reduceat(proj * proj, bounds, axis=1)) / safe[:, None]
+            out_ir[lo:hi] = np.where(known.all(axis=1)[:, None], fr, np.nan)
+        if definite:
+            eig = _eigenvalues(prop, lay, xf)
+            out_pd[lo:hi] = _is_positive_definite(eig) & ~empty
+            with np.errstate(over="ignore"):
+                out_eig[lo:hi] = np.ldexp(eig, e[:, None])
     x, a, sig_a, xf, frac, maxdev, chi2, disc, fr_ir = (out_x, out_a, out_sa, out_xf, out_frac, out_dev, out_chi,
                                                         out_disc, out_ir)
     sx = out_sx
     norm = "frobenius" if s_arr is None else "inverse covariance"
     p = None
-    if chi2 is not None and dof > 0:
-        p = chi2_sf(chi2, dof)
-    ok = frac <= tol if tol_kind == "relative" else maxdev <= tol
+    if chi2 is not None:
+        p = np.full(nt, np.nan)
+        dofs = out_given - k
+        for d in np.unique(dofs):
+            if d > 0:
+                sel = dofs == d
+                p[sel] = chi2_sf(chi2[sel], int(d))
+        if np.isnan(p).all():
+            p = None  # no degrees of freedom left for a chi-square test
+    if tol_kind == "relative":
+        ok = (frac <= tol) & (out_cdev <= ctol)
+    else:
+        ok = maxdev <= tol
     if p is not None:
-        ok = ok & (np.asarray(p) >= alpha)
+        ok = ok & ~(np.asarray(p) < alpha)
+    ok = ok & ~out_empty
+    verdicts = np.where(out_empty, "empty", np.where(ok, "consistent", "inconsistent"))
     return BatchCheck(
         property=prop.name,
         group=_group_name(g),
@@ -923,6 +1335,7 @@ def check_tensors(values, what, group, *, sigma=None, units=None, tol=0.01, tol_
         symmetrized_components=_own(xf),
         residual_fraction=_own(frac),
         max_deviation=_own(maxdev),
+        component_deviation=_own(out_cdev),
         forbidden_labels=tuple(lay.labels[c] for c in nf.zero),
         forbidden=_own(x[:, nf.zero]),
         relation_labels=tuple(lay.labels[c] for c in nf.tied),
@@ -930,11 +1343,16 @@ def check_tensors(values, what, group, *, sigma=None, units=None, tol=0.01, tol_
         chi2=_own(chi2),
         dof=dof,
         p_value=_own(p),
+        n_given=_own(out_given),
         irrep_labels=labels_ir,
         irrep_fractions=_own(fr_ir),
+        eigenvalues=_own(out_eig),
+        positive_definite=None if out_pd is None else _ro_bool(out_pd),
+        verdicts=_own(verdicts),
         passes=_ro_bool(ok),
         tol=tol,
         tol_kind=tol_kind,
         alpha=alpha,
+        component_tol=ctol,
         _inputs=(_own(x), _own(sx), prop, g),
     )

@@ -18,7 +18,7 @@ import numpy as np
 import sympy as sp
 
 __all__ = ["check_text", "check_markdown", "check_latex", "check_record", "orientation_text",
-           "orientation_record", "finding_text", "finding_record", "fmt"]
+           "orientation_record", "finding_text", "finding_record", "families_text", "batch_summary_text", "fmt"]
 
 
 def fmt(v, sig=None, digits=6):
@@ -40,13 +40,21 @@ def check_text(r):
     if r.setting:
         lines.append(f"  setting: {r.setting}")
     lines.append(f"  units: {r.units or '(not given)'}; fit norm: {r.norm}; source: {r.data.source}")
+    if r.not_given:
+        lines.append(f"  components given: {r.n_given} of {r.data.n}; not given (unknown, not zero): "
+                     f"{', '.join(r.not_given[:12])}{', ...' if len(r.not_given) > 12 else ''}")
     for why in r.reasons:
         lines.append(f"  {why}")
+    for w in r.warnings:
+        lines.append(f"  WARNING: {w}")
+    if r.verdict == "empty":
+        return "\n".join(lines)
     lines.append(f"constants{_units(r)}:")
     for c in r.constants:
         lines.append(f"  {c.name} = {fmt(c.value, c.sigma)}")
     nz = [f for f in r.forbidden if f.value != 0.0]
-    lines.append(f"forbidden components: {len(r.forbidden)}, non-zero in the data: {len(nz)}")
+    given = "" if not r.not_given else " given"
+    lines.append(f"forbidden components{given}: {len(r.forbidden)}, non-zero in the data: {len(nz)}")
     for f in sorted(nz, key=lambda f: -abs(f.value))[:12]:
         extra = "" if f.significance is None else f" ({f.significance:.2g} sigma)"
         lines.append(f"  {f.label} = {fmt(f.value, f.sigma)}{extra}")
@@ -63,17 +71,28 @@ def check_text(r):
     if r.irreps:
         parts = ", ".join(f"{p.label} {p.fraction:.2g}{'*' if p.rotation_like else ''}" for p in r.irreps)
         lines.append(f"  by irrep (* rotation-like): {parts}")
-    if r.residual_fraction > 0:
+    if r.not_given:
+        lines.append("  (no breakdown by irrep or misorientation: they need every component)")
+    elif r.residual_fraction > 0:
         ax = ", ".join(f"{v:.3f}" for v in r.misorientation_axis)
         lines.append(f"  a rotation of {r.misorientation:.3g} deg about [{ax}] explains "
                      f"{r.rotation_fraction:.3g} of it (first order)")
+    if r.eigenvalues is not None and r.positive_definite:
+        lines.append(f"positive definite: yes (eigenvalues {_eig_text(r)}{_units(r)})")
     return "\n".join(lines)
+
+
+def _eig_text(r):
+    return ", ".join(f"{v:.4g}" for v in r.eigenvalues)
 
 
 def check_markdown(r):
     """Markdown report of a CheckReport."""
     out = [f"**{r.data.property.title}** against **{r.group}**: *{r.verdict}*", ""]
     out += [f"- {why}" for why in r.reasons]
+    out += [f"- **warning**: {w}" for w in r.warnings]
+    if r.not_given:
+        out += [f"- components given: {r.n_given} of {r.data.n} (not given: {', '.join(r.not_given)})"]
     out += [f"- units: {r.units or '(not given)'}; fit norm: {r.norm}", "", "| constant | value | sigma |",
             "|---|---:|---:|"]
     out += [f"| {c.name} | {fmt(c.value)} | {fmt(c.sigma)} |" for c in r.constants]
@@ -163,8 +182,9 @@ def check_record(r):
         "relations": [{"label": t.label, "relation": None if t.relation is None else sp.sstr(t.relation.rhs),
                        "value": t.value, "expected": t.expected, "discrepancy": t.discrepancy,
                        "sigma": _num(t.sigma), "significance": _num(t.significance)} for t in r.relations],
-        "symmetrized": _arr(r.symmetrized),
-        "symmetrized_sigma": _arr(r.symmetrized_sigma),
+        "symmetrized": _nums(r.symmetrized),
+        "symmetrized_sigma": _nums(r.symmetrized_sigma),
+        "residual": _nums(r.residual),
         "residual_fraction": r.residual_fraction,
         "residual_norm": "full-tensor Frobenius",
         "max_deviation": r.max_deviation,
@@ -173,11 +193,24 @@ def check_record(r):
         "p_value": _num(r.p_value),
         "irreps": [{"label": p.label, "dim": p.dim, "multiplicity": p.multiplicity, "fraction": p.fraction,
                     "rotation_like": p.rotation_like} for p in r.irreps],
-        "misorientation_deg": r.misorientation,
-        "misorientation_axis": _arr(r.misorientation_axis),
-        "rotation_fraction": r.rotation_fraction,
+        "misorientation_deg": _num(r.misorientation),
+        "misorientation_axis": _nums(r.misorientation_axis),
+        "rotation_fraction": _num(r.rotation_fraction),
+        "n_given": r.n_given,
+        "n_components": r.data.n,
+        "not_given": list(r.not_given),
+        "component_deviation": _num(r.component_deviation),
+        "component_tol": r.component_tol,
+        "eigenvalues": _nums(r.eigenvalues),
+        "positive_definite": r.positive_definite,
+        "warnings": list(r.warnings),
         "source": r.data.source,
     }
+
+
+def _nums(a):
+    """A float array as a JSON-ready list, with NaN and inf as strings (JSON has no such numbers)."""
+    return None if a is None else [_num(v) if np.ndim(v) == 0 else _nums(v) for v in np.asarray(a, dtype=float)]
 
 
 def orientation_text(o):
@@ -190,9 +223,32 @@ def orientation_text(o):
              f"  Euler z-y-z (alpha, beta, gamma): ({e}) deg",
              "  matrix rows = standard axes in the data frame:"]
     lines += ["    [" + "  ".join(f"{v: .6f}" for v in row) + "]" for row in o.rotation]
-    lines.append(f"  equivalent solutions: {o.n_equivalent}{' (continuous)' if o.continuous else ''}; "
-                 f"search: {o.search}")
+    lines.append(f"  equivalent rotations (same constants): {o.n_equivalent}"
+                 f"{' and a continuous set' if o.continuous else ''}")
+    lines += ["  " + t for t in families_text(o)]
+    lines.append(f"  search: {o.search}")
     return "\n".join(lines)
+
+
+def families_text(o):
+    """Lines on the inequivalent solutions of an Orientation (none when the frame is fixed)."""
+    if o.free_rotation >= 3:
+        return ["nothing is forbidden in this group: every rotation fits as well (the frame is not determined)"]
+    if o.free_rotation:
+        return ["a continuous family of solutions fits as well: a turn about the axis the form keeps changes the "
+                "constants but not the residual, so the data do not fix that angle; a structure (or your "
+                "convention) must decide; shown: the solution closest to the given frame"]
+    if len(o.families) < 2:
+        return []
+    out = [f"{len(o.families)} inequivalent families of solutions fit equally well, with different constants: "
+           "the data cannot tell them apart; a structure (or your convention) must decide.",
+           "the primary one (shown above) is the family of the given frame when the data were given within 5 deg "
+           "of a standard setting, else the one with the lexicographically smallest constants in the order "
+           f"{', '.join(o.families[0].names)} (tensym's convention):"]
+    for i, f in enumerate(o.families):
+        consts = ", ".join(f"{nm} = {v:.6g}" for nm, v in zip(f.names, f.constants))
+        out.append(f"  {'*' if f.primary else ' '} family {i + 1}: {consts}; {f.angle:.3f} deg")
+    return out
 
 
 def orientation_record(o):
@@ -209,6 +265,10 @@ def orientation_record(o):
         "initial_residual_fraction": o.initial_residual_fraction,
         "n_equivalent": o.n_equivalent,
         "continuous": o.continuous,
+        "free_rotation": o.free_rotation,
+        "families": [{"rotation": _arr(f.rotation), "angle_deg": f.angle, "primary": f.primary,
+                      "constants": {nm: _num(v) for nm, v in zip(f.names, f.constants)},
+                      "n_equivalent": f.n_equivalent} for f in o.families],
         "search": o.search,
     }
 
@@ -223,6 +283,11 @@ def finding_text(f):
         mark = "ok " if c.consistent else "no "
         lines.append(f"  {mark}{c.name:<28} residual {c.residual_fraction:.3g}  "
                      f"({c.n_independent} constants; groups {', '.join(c.groups)})")
+    if f.best is not None:
+        extra = families_text(f.best.orientation)
+        if extra:
+            lines.append(f"  frame of the best class ({f.best.representative}):")
+            lines += ["    " + t for t in extra]
     return "\n".join(lines)
 
 
@@ -236,3 +301,44 @@ def finding_record(f):
     return {"kind": "symmetry_finding", "property": f.property, "tol": f.tol,
             "tol_kind": "relative", "best": None if f.best is None else f.best.name, "note": f.note,
             "candidates": [cand(c) for c in f.candidates], "rejected": [cand(c) for c in f.rejected]}
+
+
+def batch_summary_text(b, worst=5):
+    """Summary of a BatchCheck: counts per verdict, the criteria, the worst cases, sanity warnings.
+
+    A stack of 20,000 tensors gives a dozen lines; ``BatchCheck.table()`` has every row.
+    """
+    n = len(b)
+    cnt = b.counts()
+    u = f" {b.units}" if b.units else ""
+    lines = [f"{n} tensors of {b.property} checked against {b.group} (fit norm {b.norm}; units "
+             f"{b.units or '(not given)'})",
+             "  " + ", ".join(f"{v}: {c}" for v, c in cnt.items())]
+    if b.tol_kind == "relative":
+        lines.append(f"  criteria: residual fraction <= {b.tol:g} (relative, full-tensor Frobenius) and every component "
+                     f"within {b.component_tol:g} of the largest allowed magnitude"
+                     + (f"; p >= {b.alpha:g}" if b.p_value is not None else ""))
+    else:
+        lines.append(f"  criteria: every component within {b.tol:g}{u} (absolute)"
+                     + (f"; p >= {b.alpha:g}" if b.p_value is not None else ""))
+    partial = int(np.count_nonzero(b.n_given < b.symmetrized_components.shape[1])) if n else 0
+    if partial:
+        lines.append(f"  {partial} tensor(s) with components not given: fitted on the given ones only")
+    if b.positive_definite is not None:
+        bad = np.flatnonzero(~b.positive_definite & (b.verdicts != "empty"))
+        if bad.size:
+            idx = ", ".join(map(str, bad[:8])) + (", ..." if bad.size > 8 else "")
+            lines.append(f"  WARNING: {bad.size} tensor(s) not positive definite (smallest eigenvalue <= 0): {idx}")
+    if cnt["empty"]:
+        idx = np.flatnonzero(b.verdicts == "empty")
+        lines.append(f"  empty (all zero, nothing to check): {', '.join(map(str, idx[:8]))}"
+                     f"{', ...' if idx.size > 8 else ''}")
+    top = [i for i in b.worst(worst) if b.verdicts[i] != "empty"]
+    if top:
+        lines.append(f"  largest residuals (of {n}):")
+        for i in top:
+            cons = ", ".join(f"{nm} = {fmt(v, digits=5)}" for nm, v in zip(b.names[:4], b.constants[i]))
+            lines.append(f"    #{i}: {b.verdicts[i]}, residual {b.residual_fraction[i]:.3g}, component deviation "
+                         f"{b.component_deviation[i]:.3g}; {cons}{', ...' if len(b.names) > 4 else ''}")
+    lines.append("  full table: .table(); one tensor in full: .report(i)")
+    return "\n".join(lines)
