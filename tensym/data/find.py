@@ -59,7 +59,7 @@ from tensym.display import Displayed
 from tensym.data.check import _group_name
 from tensym.data.dataset import TensorData, tensor_data
 from tensym.data.model import layout as _layout, numeric_form
-from tensym.data.orient import Orientation, _equivalent_rotations, _orient_core, default_resolution
+from tensym.data.orient import Orientation, _equivalent_rotations, _orient_core, _require_orientable, default_resolution
 from tensym.data.rotation import random_rotations, shared_grid
 from tensym.errors import DataError
 from tensym.tensors.form import as_property
@@ -337,7 +337,9 @@ def find_symmetry(values, what=None, *, tol=0.01, resolution=None, refine=4, sig
     Raises
     ------
     DataError
-        For invalid data, or a ``tol`` that is not a finite number >= 0.
+        For invalid data, data with unknown (NaN) components or all zero
+        (an all-zero tensor has every symmetry: there is nothing to find), or a
+        ``tol`` that is not a finite number >= 0.
 
     Examples
     --------
@@ -354,6 +356,7 @@ def find_symmetry(values, what=None, *, tol=0.01, resolution=None, refine=4, sig
         raise DataError(f"tol must be a finite number >= 0 (relative residual), got {tol!r}")
     if isinstance(refine, bool) or not isinstance(refine, numbers.Integral) or refine < 1:
         raise DataError(f"refine must be a positive integer, got {refine!r}")
+    _require_orientable(data, "find_symmetry")
     prop = data.property
     lay = _layout(prop)
     res = default_resolution(lay.rank) if resolution is None else resolution

@@ -26,13 +26,43 @@ Method
    refined by Levenberg-Marquardt on the rotation (R <- exp([w]x) R, with the
    exact infinitesimal action of rotations on the tensor as the Jacobian);
    the best refined point wins.
-3. Equivalent solutions: if R is a solution, so is h R for every rotation h
-   that leaves every G-invariant tensor unchanged (the proper operations of G,
-   and det(g) g for the improper ones when the inversion acts trivially on the
-   property).  The reported R is the equivalent one with the smallest rotation
-   angle; all of them are in :attr:`Orientation.equivalents`.  For continuous
-   groups the rotations about the standard z axis (or all rotations, for
-   SO(3) and O(3)) are equivalent too and :attr:`Orientation.continuous` is True.
+3. Solutions that fit equally: if R is a solution, so is h R for every
+   rotation h that maps the invariant subspace V to itself (its stabiliser in
+   SO(3)).  These split in two kinds:
+
+   * *equivalent* solutions: h leaves every tensor of V unchanged (the
+     proper operations of G, det(g) g for the improper ones when the
+     inversion acts trivially on the property, rotations about the axis of a
+     transversely isotropic form): they give the same constants.  They are in
+     :attr:`Orientation.equivalents`; the reported rotation is the one with the
+     smallest angle among them.
+   * *inequivalent families*: h maps V to itself but changes its tensors (a
+     turn of 45 degrees about z takes a tetragonal tensor with x along [100]
+     to the one with x along [110]; a turn of 180 degrees about x reverses a
+     polar axis).  Each family fits the data exactly as well, with other
+     constants: the data cannot tell them apart, a structure (or the user's
+     convention) must decide.  :attr:`Orientation.families` lists every one
+     with its constants.  The primary solution (``rotation``, ``rotated``)
+     is, by tensym's convention: the family with a solution within 5 degrees
+     of the given frame, when there is one (the data were given in a standard
+     setting: the user's axes decide); otherwise the family whose constants,
+     read in the form's order (c11, c12, ...), are lexicographically smallest
+     (compared to 1e-9 of the largest constant), a rule on the numbers, not
+     on the crystal, stated so that programs get a reproducible answer
+     whatever the frame of the data.
+
+   When the stabiliser is continuous and changes the tensors (a monoclinic
+   form about its 2-fold axis, a form with nothing forbidden) the family is
+   continuous (:attr:`Orientation.free_rotation`); the primary solution is
+   then the one closest to the given frame.  For continuous groups the
+   rotations about the standard z axis (or all rotations, for SO(3) and O(3))
+   that keep every tensor are equivalent and :attr:`Orientation.continuous`
+   is True.
+
+The data are worked on in a copy scaled by a power of two (exact), so the
+result does not depend on the magnitude of the units.  All-zero data and data
+with unknown (NaN) components are refused: the first has no orientation, and
+a rotation mixes the components.
 
 Examples
 --------
@@ -55,12 +85,12 @@ import numpy as np
 
 from tensym.display import Displayed
 from tensym.data.check import _group, _group_name, _lie_matrices
-from tensym.data.dataset import TensorData, tensor_data
+from tensym.data.dataset import TensorData, _exponent, tensor_data
 from tensym.data.model import group_space, layout as _layout, numeric_form, pair_rotation, rotate_full
 from tensym.data.rotation import axis_angle, euler_angles, shared_grid
 from tensym.errors import DataError
 
-__all__ = ["Orientation", "orient", "default_resolution"]
+__all__ = ["Orientation", "SolutionFamily", "orient", "default_resolution"]
 
 
 def _ro(a):
@@ -78,6 +108,50 @@ def default_resolution(rank):
     (10.0, 15.0)
     """
     return float(min(15.0, max(5.0, 40.0 / max(int(rank), 1))))
+
+
+@dataclass(frozen=True, eq=False)
+class SolutionFamily:
+    """One family of rotations that fit the data equally well, with its constants.
+
+    Attributes
+    ----------
+    rotation : numpy.ndarray
+        float64 (3, 3), read-only: the family's rotation with the smallest angle
+        (data frame -> standard setting, as :attr:`Orientation.rotation`).
+    angle : float
+        Its rotation angle in degrees.
+    names : tuple of str
+        Names of the constants ('c11', ...), the form's order.
+    constants : numpy.ndarray
+        float64 (k,), read-only: the constants of the data rotated by ``rotation``
+        (Frobenius-norm fit, the data's units).
+    n_equivalent : int
+        Number of rotations in the family that give these same constants.
+    primary : bool
+        True for the family :attr:`Orientation.rotation` belongs to.
+
+    Examples
+    --------
+    >>> import numpy as np, tensym
+    >>> d = np.zeros((3, 6)); d[2, 2] = 20.0; d[2, 0] = d[2, 1] = -8.0; d[0, 4] = d[1, 3] = 30.0
+    >>> fams = tensym.orient(d, "piezoelectric_d", "6mm").families   # polar axis up or down
+    >>> [f.constants.round(6).tolist() for f in fams]        # given in the standard setting: primary first
+    [[30.0, -8.0, 20.0], [-30.0, 8.0, -20.0]]
+    """
+
+    rotation: np.ndarray
+    angle: float
+    names: tuple
+    constants: np.ndarray
+    n_equivalent: int
+    primary: bool
+
+    def constant(self, name):
+        """The value of the constant called ``name`` in this family."""
+        if name not in self.names:
+            raise KeyError(f"{name!r} is not a constant here; constants: {', '.join(self.names)}")
+        return float(self.constants[self.names.index(name)])
 
 
 @dataclass(frozen=True, eq=False)
@@ -106,10 +180,19 @@ class Orientation(Displayed):
     rotated : TensorData
         The data in the standard setting (covariance propagated).
     equivalents : numpy.ndarray
-        float64 (m, 3, 3): every h R with h from the group's equivalent
-        rotations (see the module notes); ``rotation`` is among them.
+        float64 (m, 3, 3): every h R with h a rotation that leaves every tensor
+        of the group's form unchanged (the same constants; see the module
+        notes); ``rotation`` is among them.
     continuous : bool
         True when a continuous set of rotations is equivalent as well.
+    families : tuple of SolutionFamily
+        Every inequivalent family of solutions (other constants, the same
+        residual), the primary one first; one entry when the data fix the
+        frame up to equivalent rotations.
+    free_rotation : int
+        Dimension of a continuous family of inequivalent solutions (1: a free
+        turn about an axis, as for a monoclinic form; 3: nothing is forbidden,
+        every rotation fits); 0 when the families are discrete.
     local_minima : tuple of float
         Residual fractions of the refined distinct candidates, best first.
     resolution : float
@@ -139,25 +222,41 @@ class Orientation(Displayed):
     local_minima: tuple = ()
     resolution: float = 0.0
     search: str = ""
+    families: tuple = ()
+    free_rotation: int = 0
     _group_obj: object = field(default=None, repr=False)
     _lie: np.ndarray = field(default=None, repr=False)
+    _solutions: np.ndarray = field(default=None, repr=False)
 
     @property
     def n_equivalent(self):
-        """Number of discrete equivalent rotations."""
+        """Number of discrete equivalent rotations (the same constants)."""
         return int(self.equivalents.shape[0])
 
-    def misorientation_to(self, rotation):
-        """Smallest angle in degrees between ``rotation`` and any equivalent solution.
+    @property
+    def n_families(self):
+        """Number of inequivalent families of solutions (see :attr:`families`)."""
+        return len(self.families)
 
-        For a continuous group the free rotations (about the standard z axis, or
-        all of them) are minimised over as well.
+    @property
+    def solutions(self):
+        """float64 (m, 3, 3), a new array: every discrete rotation that fits as well, over every family."""
+        return np.array(self._solutions if self._solutions is not None else self.equivalents)
+
+    def misorientation_to(self, rotation):
+        """Smallest angle in degrees between ``rotation`` and any solution that fits as well.
+
+        Every family counts (:attr:`solutions`): the data cannot tell them
+        apart.  For a continuous group the free rotations (about the standard
+        z axis, or all of them) are minimised over as well.
         """
         from tensym.data.rotation import as_rotation
 
         r = as_rotation(rotation)
-        m = np.einsum("aij,kj->aik", self.equivalents, r)  # h R r^T
-        if self.continuous:
+        if self.free_rotation >= 3:
+            return 0.0
+        m = np.einsum("aij,kj->aik", self.solutions, r)  # h R r^T
+        if self._lie is not None and len(self._lie):
             if len(self._lie) >= 3:
                 return 0.0
             tr = np.array([_best_trace(x, self._lie[0])[1] for x in m])
@@ -249,6 +348,14 @@ def _close(mats, limit=200):
 _STAB_CACHE = {}
 
 
+def _frozen(arrays):
+    """The arrays of a cache entry, read-only (the cache is process-wide)."""
+    out = tuple(np.array(a, dtype=np.float64) for a in arrays)
+    for a in out:
+        a.setflags(write=False)
+    return out
+
+
 def _equivalent_rotations(nf, group):
     """Rotations h with h.V = V for the invariant subspace V of the group (its stabiliser in SO(3)).
 
@@ -265,8 +372,8 @@ def _equivalent_rotations(nf, group):
     if nf.k == 0:
         res = (np.eye(3)[None], np.array([[[0, 0, 0], [0, 0, -1], [0, 1, 0]], [[0, 0, 1], [0, 0, 0], [-1, 0, 0]],
                                         [[0, -1, 0], [1, 0, 0], [0, 0, 0]]], dtype=np.float64))
-        _STAB_CACHE[ck] = res
-        return res
+        _STAB_CACHE[ck] = _frozen(res)
+        return _STAB_CACHE[ck]
     q = nf.Q
     basis_t = lay.x_to_full((q / lay.scale[:, None]).T)  # (k, 3, ..., 3)
 
@@ -284,8 +391,8 @@ def _equivalent_rotations(nf, group):
     lie = np.einsum("da,aij->dij", null, gens3) if len(null) else np.zeros((0, 3, 3))
     if len(lie) >= 2:
         res = (np.eye(3)[None], gens3)
-        _STAB_CACHE[ck] = res
-        return res
+        _STAB_CACHE[ck] = _frozen(res)
+        return _STAB_CACHE[ck]
     if getattr(group, "is_continuous", False):
         from tensym.groups.finite import PointGroup
 
@@ -301,8 +408,70 @@ def _equivalent_rotations(nf, group):
         cands = [rotation_from_axis_angle(perp, 180.0)]
     kept = [h for h in cands if keeps(h)]
     res = (np.array(_close(kept)), lie)
-    _STAB_CACHE[ck] = res
-    return res
+    _STAB_CACHE[ck] = _frozen(res)
+    return _STAB_CACHE[ck]
+
+
+_STRUCT_CACHE = {}
+#: A family with a solution within this angle (degrees) of the given frame is primary: the data were given
+#: in a standard setting of the group (inequivalent families lie tens of degrees apart).
+_GIVEN_FRAME_DEG = 5.0
+
+
+class _Structure:
+    """How the rotations that keep the invariant subspace V act on it (cached per property and group).
+
+    same : (p, 3, 3) discrete rotations acting as the identity on V (equivalent solutions)
+    reps : (f, 3, 3) one rotation per coset of ``same`` (one per inequivalent family), identity first
+    lie_same : (d, 3, 3) Lie generators acting as zero on V
+    free : dimension of the Lie generators that move V's tensors (0, 1 or 3)
+    """
+
+    def __init__(self, same, reps, lie_same, free):
+        self.same, self.reps, self.lie_same, self.free = same, reps, lie_same, free
+        for a in (same, reps, lie_same):
+            a.setflags(write=False)
+
+
+def _solution_structure(nf, group):
+    from tensym.data.model import group_key_of, rotation_action
+
+    ck = (nf.layout.prop, group_key_of(group))
+    hit = _STRUCT_CACHE.get(ck)
+    if hit is not None:
+        return hit
+    equiv, lie = _equivalent_rotations(nf, group)
+    lay, q = nf.layout, nf.Q
+    eye3 = np.eye(3)[None]
+    if nf.k == 0:
+        hit = _Structure(np.array(equiv), eye3.copy(), np.array(lie), 0)
+        _STRUCT_CACHE[ck] = hit
+        return hit
+    lie_all = _lie_matrices(lay)
+    lie_same, free = np.zeros((0, 3, 3)), 0
+    if len(lie):
+        coef = np.array([[L[2, 1], L[0, 2], L[1, 0]] for L in lie])
+        on_v = np.stack([(q.T @ np.tensordot(c, lie_all, axes=1) @ q).reshape(-1) for c in coef], axis=1)
+        _, sv, vt = np.linalg.svd(on_v, full_matrices=True)
+        rank = int(np.sum(sv > 1e-9))
+        null = vt[rank:]
+        lie_same = np.einsum("md,dij->mij", null, lie) if len(null) else np.zeros((0, 3, 3))
+        free = 3 if len(lie) >= 3 and rank else rank
+    scale = lay.scale
+    same, reps, mats = [], [], []
+    for h in equiv:
+        m = q.T @ ((scale[:, None] * rotation_action(lay, h) / scale[None, :]) @ q)
+        if np.allclose(m, np.eye(nf.k), atol=1e-8):
+            same.append(h)
+        if not any(np.allclose(m, m2, atol=1e-8) for m2 in mats):
+            mats.append(m)
+            reps.append(h)
+    # the identity's family first
+    order = sorted(range(len(reps)), key=lambda i: not np.allclose(mats[i], np.eye(nf.k), atol=1e-8))
+    reps = [reps[i] for i in order]
+    hit = _Structure(np.array(same), np.array(reps), np.array(lie_same), int(free))
+    _STRUCT_CACHE[ck] = hit
+    return hit
 
 
 def _lie_axis(L):
@@ -505,8 +674,8 @@ def orient(values, what=None, group=None, *, resolution=None, refine=6, sigma=No
     Raises
     ------
     DataError
-        For invalid data, a missing group, a resolution outside [1, 90] or
-        ``refine`` < 1.
+        For invalid data, data with unknown (NaN) components or all zero, a
+        missing group, a resolution outside [1, 90] or ``refine`` < 1.
     UnknownGroupError
         For an unknown group symbol.
     InvalidGroupError
@@ -528,6 +697,7 @@ def orient(values, what=None, group=None, *, resolution=None, refine=6, sigma=No
                                                                       "symmetry_tol": symmetry_tol}))
     if isinstance(refine, bool) or not isinstance(refine, numbers.Integral) or refine < 1:
         raise DataError(f"refine must be a positive integer, got {refine!r}")
+    _require_orientable(data, "orient")
     g = _group(group)
     prop = data.property
     lay = _layout(prop)
@@ -537,21 +707,55 @@ def orient(values, what=None, group=None, *, resolution=None, refine=6, sigma=No
     return _orient_core(data, g, nf, grid, float(res), int(refine))
 
 
+def _require_orientable(data, what):
+    """Refuse data that have no orientation: unknown components, or every component zero."""
+    data._need_complete(what)
+    if not np.any(np.asarray(data.components)):
+        raise DataError(f"the data are all zero: an all-zero tensor fits every group in every frame, so "
+                        f"{what} has nothing to find")
+
+
 def _orient_core(data, g, nf, grid, res, refine, grid_cache=None):
     lay = nf.layout
-    obj = _Objective(lay, nf.Q, np.asarray(data.components))
+    x = np.asarray(data.components)
+    e = _exponent(x) or 0
+    xs = np.ldexp(x, -e)  # a scaled copy: the result does not depend on the magnitude of the units
+    obj = _Objective(lay, nf.Q, xs)
     equiv, lie = _equivalent_rotations(nf, g)
+    st = _solution_structure(nf, g)
     best, minima = _search(obj, nf, equiv, lie, grid, res, refine, grid_cache)
-    best = _canonical(best, equiv, lie)
+    if st.free or nf.k == 0 or obj.norm2 == 0:
+        best = _canonical(best, equiv, lie)  # a continuous family: the solution closest to the given frame
+        fams = [(best, len(st.same))]
+    else:
+        fams = [(_canonical(h @ best, st.same, st.lie_same), len(st.same)) for h in st.reps]
+    consts = []
+    for r, _ in fams:
+        y = obj.y(r)
+        consts.append(nf.fit @ (y / lay.scale))
+    if len(fams) > 1:
+        top = max(float(np.max(np.abs(c))) if c.size else 0.0 for c in consts) or 1.0
+        keys = [tuple(np.round(c / top * 1e9).tolist()) for c in consts]
+        near = [i for i, (r, _) in enumerate(fams) if axis_angle(r)[1] < _GIVEN_FRAME_DEG]
+        # the data were given in a standard setting of the group: the user's axes decide; else the numbers
+        order = sorted(range(len(fams)), key=lambda i: (i not in near, keys[i]))
+        fams = [fams[i] for i in order]
+        consts = [consts[i] for i in order]
+    best = fams[0][0]
+    rotated = data.rotated(best)
     if obj.norm2 > 0:
-        e = obj.residual(obj.y(best))
-        frac = float(np.linalg.norm(e)) / math.sqrt(obj.norm2)
+        ev = obj.residual(obj.y(best))
+        frac = float(np.linalg.norm(ev)) / math.sqrt(obj.norm2)
         e0 = obj.residual(obj.y(np.eye(3)))
         frac0 = float(np.linalg.norm(e0)) / math.sqrt(obj.norm2)
     else:
         frac = frac0 = 0.0
     axis, angle = axis_angle(best)
-    eqs = np.einsum("aij,jk->aik", equiv, best)
+    eqs = np.einsum("aij,jk->aik", st.same if not st.free else equiv, best)
+    with np.errstate(over="ignore"):  # a constant past 1.8e308 is inf (rotated already said the data fit)
+        families = tuple(SolutionFamily(rotation=_ro(r), angle=float(axis_angle(r)[1]), names=nf.names,
+                                        constants=_ro(np.ldexp(c, e)), n_equivalent=int(m), primary=(i == 0))
+                         for i, ((r, m), c) in enumerate(zip(fams, consts)))
     search = (f"{len(grid)}-point grid over SO(3) at {res:g} deg, {min(refine, len(grid))} distinct minima "
               "refined (Levenberg-Marquardt)")
     return Orientation(
@@ -563,12 +767,15 @@ def _orient_core(data, g, nf, grid, res, refine, grid_cache=None):
         euler=tuple(float(v) for v in euler_angles(best)),
         residual_fraction=frac,
         initial_residual_fraction=frac0,
-        rotated=data.rotated(best),
+        rotated=rotated,
         equivalents=_ro(eqs),
-        continuous=bool(len(lie)),
+        continuous=bool(len(st.lie_same)),
         local_minima=minima,
         resolution=res,
         search=search,
+        families=families,
+        free_rotation=int(st.free) if nf.k else 0,
         _group_obj=g,
         _lie=lie,
+        _solutions=_ro(np.einsum("aij,jk->aik", equiv, best)),
     )
