@@ -175,7 +175,7 @@ BAD_FILES = [
      "line 1 gives property 'dielectric_permittivity' but line 2 gives 'elastic_stiffness'"),
     ("header.csv", b"# property: elastic_stiffness\ncomponent,value\n", "header.csv: no components"),
     ("partial.csv", b"# property: elastic_stiffness\ncomponent,value\nc11,160\nc12,90\n",
-     "mark a zero component with 0"),
+     "write 0 explicitly"),
     ("empty.csv", b"", "empty.csv is empty"),
     ("blank.csv", b"\n \n\t\n", "blank.csv is empty"),
     ("noprop.csv", b"2,0,0\n0,2,0\n0,0,3\n", "--property NAME on the command line"),
