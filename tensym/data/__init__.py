@@ -33,7 +33,7 @@ from tensym.data.dataset import TensorData, component_labels, tensor_data
 from tensym.data.elastic import invert_data, invert_elastic
 from tensym.data.find import SymmetryCandidate, SymmetryClass, SymmetryFinding, find_symmetry, symmetry_classes
 from tensym.data.io import read_tensor, write_tensor
-from tensym.data.orient import Orientation, orient
+from tensym.data.orient import Orientation, SolutionFamily, orient
 from tensym.data.rotation import (
     axis_angle,
     euler_angles,
@@ -64,6 +64,7 @@ __all__ = [
     "IrrepResidual",
     "orient",
     "Orientation",
+    "SolutionFamily",
     "find_symmetry",
     "symmetry_classes",
     "SymmetryFinding",

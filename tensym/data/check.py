@@ -818,8 +818,9 @@ def check_tensor(values, what=None, group=None, *, sigma=None, covariance=None, 
             float(np.ldexp(abs(xf_s[top]), e)))
     passes, reasons = _verdict(frac, maxdev, comp, p, chi2, dof, tol, tol_kind, ctol, alpha, data.units)
     if not complete:
-        reasons = reasons + (f"components given: {n_given} of {lay.n}; the fit and the tests use only these "
-                             "(the others are unknown, not zero)",)
+        reasons = reasons + (f"components given: {n_given} of {lay.n}; the fit and the tests use only these; not "
+                             f"given (unknown, not zero): {', '.join(not_given[:8])}"
+                             f"{', ...' if len(not_given) > 8 else ''}",)
     eig = _eigenvalues(prop, lay, xf_s)
     pd, warns = None, ()
     if eig is not None:
@@ -890,7 +891,9 @@ def _empty_report(data, g, nf, norm, tol, tol_kind, ctol, alpha, n_given, not_gi
         residual=_ro(lay.x_to_voigt(np.where(known, 0.0, np.nan))), residual_fraction=0.0, max_deviation=0.0,
         chi2=None, dof=n_given - nf.k, p_value=None, irreps=(), misorientation=0.0,
         misorientation_axis=_ro([0.0, 0.0, 1.0]), rotation_fraction=0.0, tol=tol, tol_kind=tol_kind, alpha=alpha,
-        passes=False, verdict="empty", reasons=(_EMPTY_REASON,), n_given=n_given, not_given=not_given,
+        passes=False, verdict="empty",
+        reasons=(_EMPTY_REASON,) + (() if not not_given else (f"components given: {n_given} of {lay.n}",)),
+        n_given=n_given, not_given=not_given,
         component_deviation=0.0, component_tol=ctol, eigenvalues=None, positive_definite=None, warnings=(),
         data=data, form=nf.form)
 

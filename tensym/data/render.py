@@ -40,9 +40,6 @@ def check_text(r):
     if r.setting:
         lines.append(f"  setting: {r.setting}")
     lines.append(f"  units: {r.units or '(not given)'}; fit norm: {r.norm}; source: {r.data.source}")
-    if r.not_given:
-        lines.append(f"  components given: {r.n_given} of {r.data.n}; not given (unknown, not zero): "
-                     f"{', '.join(r.not_given[:12])}{', ...' if len(r.not_given) > 12 else ''}")
     for why in r.reasons:
         lines.append(f"  {why}")
     for w in r.warnings:
@@ -91,8 +88,6 @@ def check_markdown(r):
     out = [f"**{r.data.property.title}** against **{r.group}**: *{r.verdict}*", ""]
     out += [f"- {why}" for why in r.reasons]
     out += [f"- **warning**: {w}" for w in r.warnings]
-    if r.not_given:
-        out += [f"- components given: {r.n_given} of {r.data.n} (not given: {', '.join(r.not_given)})"]
     out += [f"- units: {r.units or '(not given)'}; fit norm: {r.norm}", "", "| constant | value | sigma |",
             "|---|---:|---:|"]
     out += [f"| {c.name} | {fmt(c.value)} | {fmt(c.sigma)} |" for c in r.constants]
@@ -242,7 +237,7 @@ def families_text(o):
         return []
     out = [f"{len(o.families)} inequivalent families of solutions fit equally well, with different constants: "
            "the data cannot tell them apart; a structure (or your convention) must decide.",
-           "the primary one (shown above) is the family of the given frame when the data were given within 5 deg "
+           "the primary one (marked *) is the family of the given frame when the data were given within 5 deg "
            "of a standard setting, else the one with the lexicographically smallest constants in the order "
            f"{', '.join(o.families[0].names)} (tensym's convention):"]
     for i, f in enumerate(o.families):

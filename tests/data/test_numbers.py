@@ -257,3 +257,61 @@ def test_user_builds_tensor_data_directly_from_a_writable_list():
 def test_user_rotates_values_with_nan():
     with pytest.raises(DataError, match="a rotation mixes the components"):
         tensym.rotate_values(np.where(np.eye(6) > 0, np.nan, 1.0), np.eye(3), "elastic_stiffness")
+
+
+_OBJECT_ENTRIES = {
+    "a Python complex among sympy numbers": (1 + 2j, "complex number"),
+    "a boolean among sympy numbers": (True, "a boolean"),
+    "a string among sympy numbers": ("2.5", "the string"),
+    "a dict": ({"c11": 1}, "a dict"),
+    "a sympy integer past the float range": (sp.Integer(10) ** 400, "beyond the float64 range"),
+    "a sympy number that is complex": (1 + sp.I, "complex number"),
+}
+
+
+@pytest.mark.parametrize("case", list(_OBJECT_ENTRIES), ids=list(_OBJECT_ENTRIES))
+def test_user_checks_an_object_array_with_one_bad_entry(case):
+    bad, match = _OBJECT_ENTRIES[case]
+    arr = np.empty((6, 6), dtype=object)
+    arr[:] = sp.Integer(0)
+    arr[0, 0] = bad
+    with pytest.raises(DataError, match=r"values entry \(1, 1\) .*" + match):
+        tensym.check_tensor(arr, "elastic_stiffness", "m-3m")
+
+
+def test_user_evaluates_a_tensor_form_with_an_object_that_is_not_a_number():
+    with pytest.raises(DataError, match="value of c11 must be a real number, got dict"):
+        tensym.tensor_form("elastic_stiffness", "m-3m").evaluate([{}, 1.0, 1.0])
+
+
+def test_user_builds_tensor_data_with_a_source_that_is_not_text():
+    with pytest.raises(DataError, match="source must be a string"):
+        TensorData(get_property("elastic_stiffness"), np.ones(21), source=3)
+
+
+def test_user_gives_infinite_euler_angles():
+    with pytest.raises(DataError, match="Euler angles must be finite"):
+        tensym.rotation_from_euler(np.inf, 0.0, 0.0)
+
+
+def test_user_inverts_a_stiffness_with_inf():
+    with pytest.raises(DataError, match="elastic_stiffness contains inf"):
+        tensym.invert_elastic(np.where(np.eye(6) > 0, np.inf, 0.0))
+
+
+def test_user_checks_a_stack_with_a_tensor_that_gives_nothing():
+    stack = np.stack([C, np.full((6, 6), np.nan)])
+    with pytest.raises(DataError, match="tensor 1 of the stack gives no component"):
+        tensym.check_tensors(stack, "elastic_stiffness", "m-3m")
+
+
+def test_user_checks_a_stack_with_an_unknown_uncertainty_of_a_given_component():
+    s = np.ones((2, 6, 6))
+    s[1, 0, 0] = np.nan
+    with pytest.raises(DataError, match="sigma is NaN \\(unknown\\) for c11 of tensor 1 of the stack"):
+        tensym.check_tensors(np.stack([C, C]), "elastic_stiffness", "m-3m", sigma=s)
+
+
+def test_user_checks_a_stack_with_uncertainties_far_below_the_values():
+    with pytest.raises(DataError, match="uncertainties far below the values"):
+        tensym.check_tensors(C[None] * 1e150, "elastic_stiffness", "m-3m", sigma=np.full((1, 6, 6), 1e-160))

@@ -5,6 +5,8 @@ the rows of the given components, weights = number of index tuples x Voigt facto
 norm, 1/sigma^2 with uncertainties), with the form's matrix A from tensym.tensor_form.
 """
 
+import json
+
 import numpy as np
 import pytest
 from hypothesis import given, settings, strategies as st
@@ -52,6 +54,8 @@ def test_user_checks_a_hexagonal_crystal_from_its_five_handbook_constants_only()
     assert r.dof == 0 and r.forbidden == () and r.irreps == ()
     assert "components given: 5 of 21" in r.text()
     assert "unknown, not zero" in r.text()
+    rec = json.loads(json.dumps(r.record(), allow_nan=False))        # strict JSON: unknowns as "nan" strings
+    assert rec["n_given"] == 5 and rec["residual"][5][5] == "nan" and rec["misorientation_deg"] == "nan"
 
 
 def test_user_checks_partial_data_with_a_forbidden_component_given():
