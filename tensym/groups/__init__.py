@@ -6,7 +6,9 @@
   in their settings, the icosahedral groups, the continuous groups).
 * :func:`group_from_generators`, :func:`recognise`, :func:`reorient`,
   :func:`rotation_from_axes`, :func:`rotation_about`: user groups, their names,
-  re-oriented copies and exact rotations.
+  re-oriented copies and exact rotations; float matrices (as structure files
+  print them) are snapped to the exact group within ``tol``
+  (:mod:`tensym.groups.snapping`).
 * :func:`settings_table`, :func:`point_groups`: the catalog.
 * :func:`space_group_point_group`, :func:`space_group_symbol`, :func:`space_group_symbols`:
   space-group symbols and numbers (``'P6_3mc'``, ``186``) read as their point groups

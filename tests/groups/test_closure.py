@@ -82,8 +82,12 @@ def test_non_orthogonal_generator():
 
 
 def test_float_generator():
-    with pytest.raises(InvalidOperationError, match="float"):
+    # floats are snapped (issue 9); cos t = 0.6 is no rotation of finite order, so no group is near
+    with pytest.raises(GroupClosureError, match="not within tol=0.0001 .* of a finite point group"):
         group_from_generators([[[0.6, -0.8, 0], [0.8, 0.6, 0], [0, 0, 1]]])
+    # an exact Operation still refuses floats
+    with pytest.raises(InvalidOperationError, match="float"):
+        Operation.from_matrix([[0.6, -0.8, 0], [0.8, 0.6, 0], [0, 0, 1]])
 
 
 def test_rotation_of_irrational_angle():
