@@ -553,9 +553,10 @@ def _frames(std, qn, tol):
 
 
 def _finish(group, given, dev, tol):
-    """The exact group with the given matrices' nearest operations as generators and the snap in its names."""
-    ops = group.operations
-    nums = np.array([op._num for op in ops])
-    gens = [ops[int(np.argmin(np.max(np.abs(nums - g), axis=(1, 2))))] for g in given]
+    """The exact group, with the snap in its names.
+
+    Its generators are those of the catalog setting (turned by Q): a few, however many
+    matrices were given, so that solvers working on generators stay fast.
+    """
     words = f"{group.names.setting}; snapped from float operations (largest deviation {dev:.1e}, tol {tol:g})"
-    return PointGroup(ops, gens, dataclasses.replace(group.names, setting=words))
+    return PointGroup(group.operations, group.generators, dataclasses.replace(group.names, setting=words))
