@@ -29,13 +29,32 @@ from itertools import product
 import numpy as np
 import sympy as sp
 
-from tensym.errors import InvalidSpecError, RankLimitError
+from tensym.errors import InvalidArgumentError, InvalidSpecError, RankLimitError
 
 __all__ = ["TensorSpec", "INDEX_LETTERS", "MAX_RANK"]
 
 INDEX_LETTERS = "ijklmnpqrstuvw"
 #: Highest rank accepted (3**MAX_RANK components are enumerated once per spec).
 MAX_RANK = 10
+
+
+def _flag(name, value):
+    """``value`` as a Python bool when it is a real boolean (bool or numpy.bool_), else an error.
+
+    Strings such as ``"no"`` or ``"False"`` and numbers such as 0 are refused:
+    ``bool("no")`` is True, so accepting them would silently give the opposite
+    of what was meant.
+    """
+    if isinstance(value, (bool, np.bool_)):
+        return bool(value)
+    raise InvalidArgumentError(
+        f"{name} must be True or False (a bool or numpy.bool_), got {type(value).__name__} {_cut(repr(value))}"
+    )
+
+
+def _cut(text, limit=60):
+    """A long input shortened for an error message."""
+    return text if len(text) <= limit else text[: limit - 5] + "[...]"
 
 
 def _parse_symmetry(text, rank):
@@ -173,15 +192,20 @@ class TensorSpec:
         Permuted index strings, each an equality with the identity order
         (``"jikl"`` means T_ijkl = T_jikl; ``"-ji"`` means T_ij = -T_ji).
     axial : bool
-        Transforms with an extra factor det(R) (a pseudo-tensor).
+        Transforms with an extra factor det(R) (a pseudo-tensor).  Only
+        ``True``/``False`` (or numpy.bool_) are accepted: a string such as
+        ``"no"`` is an error, not a true value.
     time_odd : bool
-        Changes sign under operations combined with time reversal.
+        Changes sign under operations combined with time reversal (same
+        rule as ``axial``).
 
     Raises
     ------
     InvalidSpecError
-        For a malformed symmetry string or symmetries that contradict each other
-        (``["ji", "-ji"]``).
+        For a malformed symmetry string, symmetries that are not a list of
+        strings, or symmetries that contradict each other (``["ji", "-ji"]``).
+    InvalidArgumentError
+        For ``axial`` or ``time_odd`` other than a bool (``"no"``, ``0``, None).
     RankLimitError
         For a rank outside 0..MAX_RANK.
 
@@ -211,9 +235,20 @@ class TensorSpec:
         object.__setattr__(self, "rank", int(self.rank))
         if isinstance(self.symmetries, str):
             raise InvalidSpecError(
-                f"symmetries must be a list of strings, e.g. [{self.symmetries!r}], not a bare string"
+                f"symmetries must be a list of strings, e.g. [{_cut(repr(self.symmetries))}], not a bare string"
             )
-        syms = tuple(str(s).strip() for s in self.symmetries)
+        if not isinstance(self.symmetries, (list, tuple)):
+            raise InvalidSpecError(
+                f"symmetries must be a list or tuple of index strings such as ['jikl', 'ijlk'], "
+                f"got {type(self.symmetries).__name__} {_cut(repr(self.symmetries))}"
+            )
+        bad = [s for s in self.symmetries if not isinstance(s, str)]
+        if bad:
+            raise InvalidSpecError(
+                f"each symmetry must be a string such as 'jikl' or '-ji', got {type(bad[0]).__name__} "
+                f"{_cut(repr(bad[0]))}"
+            )
+        syms = tuple(s.strip() for s in self.symmetries)
         object.__setattr__(self, "symmetries", syms)
         gens = tuple(sorted({_parse_symmetry(s, self.rank) for s in syms}))
         group = _close_perms(gens, self.rank)
@@ -221,8 +256,8 @@ class TensorSpec:
             raise InvalidSpecError(
                 f"symmetries {syms!r} contradict each other: some permutation would equal both +T and -T"
             )
-        object.__setattr__(self, "axial", bool(self.axial))
-        object.__setattr__(self, "time_odd", bool(self.time_odd))
+        object.__setattr__(self, "axial", _flag("axial", self.axial))
+        object.__setattr__(self, "time_odd", _flag("time_odd", self.time_odd))
         object.__setattr__(self, "_gens", gens)
         object.__setattr__(self, "_group", group)
 
