@@ -21,6 +21,7 @@ __all__ = [
     "InvalidOptionError",
     "DataError",
     "RankLimitError",
+    "MemoryLimitError",
     "InvalidGroupError",
 ]
 
@@ -68,6 +69,15 @@ class DataError(TensymError, ValueError):
 
 class RankLimitError(TensymError, ValueError):
     """A tensor rank beyond the limit tensym supports."""
+
+
+class MemoryLimitError(RankLimitError, MemoryError):
+    """A request refused before allocating because its estimated memory passes the limit.
+
+    The message gives the estimate and the limit (``tensym.tensors.spec.MEMORY_LIMIT``).
+    It is also a :class:`RankLimitError` (the usual cause is a high rank) and a
+    ``MemoryError``.
+    """
 
 
 class InvalidGroupError(TensymError, TypeError):

@@ -63,7 +63,7 @@ def _space_action_dm(space, op):
 
 
 def group_actions(space, group):
-    """DomainMatrices D(g) of every operation of a finite group (aligned with group.operations).
+    """DomainMatrices D(g) of every operation of a finite group (a tuple aligned with group.operations).
 
     Only the generators' actions are asked of the space; cached per (space, group).
     """
@@ -100,6 +100,7 @@ def group_actions(space, group):
     if any(m is None for m in mats):
         # generators do not reach every element: fall back to the space's own action
         mats = unify([m if m is not None else _space_action_dm(space, ops[i]) for i, m in enumerate(mats)])
+    mats = tuple(mats)  # cached and shared: a tuple, so a caller cannot replace an element
     if len(_CACHE) > 512:
         _CACHE.clear()
     _CACHE[key] = (space, mats)

@@ -176,8 +176,12 @@ class PolynomialSpace(Space):
     """
 
     def __init__(self, degree):
-        self.degree = _check_degree(degree, "degree")
-        self.basis = tuple(_mono_expr(e) for e in monomials(self.degree))
+        self._degree = _check_degree(degree, "degree")
+        self._basis = tuple(_mono_expr(e) for e in monomials(self._degree))
+
+    # read-only: the spaces are shared through a cache (polynomials(n) returns one object per n)
+    degree = property(lambda self: self._degree, doc="The degree n (int, read-only).")
+    basis = property(lambda self: self._basis, doc="The monomials, x**n first (tuple of sympy expressions).")
 
     @property
     def dim(self):
@@ -288,12 +292,17 @@ class HarmonicSpace(Space):
     """
 
     def __init__(self, l, parity):
-        self.l = l
-        self.parity = parity
-        self.basis = harmonic_basis(l)
-        self._H = sp.Matrix([_poly_coords(b, l, "harmonic") for b in self.basis]).T
+        self._l = l
+        self._parity = parity
+        self._basis = harmonic_basis(l)
+        self._H = sp.ImmutableMatrix(sp.Matrix([_poly_coords(b, l, "harmonic") for b in self._basis]).T)
         self._pinv = None
         self._dm = None
+
+    # read-only: the spaces are shared through a cache (harmonics(l) returns one object per (l, parity))
+    l = property(lambda self: self._l, doc="The angular momentum l (int, read-only).")
+    parity = property(lambda self: self._parity, doc="'g' or 'u' (read-only).")
+    basis = property(lambda self: self._basis, doc="The real solid harmonics (tuple of sympy polynomials).")
 
     @property
     def dim(self):

@@ -265,7 +265,7 @@ class CharacterTable:
         return tuple(x + y for x, y in zip(a, b))
 
     def matrices(self, label):
-        """Exact irrep matrices, one per operation (aligned with ``group.operations``).
+        """Exact irrep matrices, one per operation (aligned with ``group.operations``): a tuple of ImmutableMatrix.
 
         The matrices are unitary, real orthogonal for a real irrep (including
         the real form of a complex pair, which uses the real and imaginary parts
@@ -298,6 +298,8 @@ class CharacterTable:
                 from tensym.reps.irreps import build_matrices
 
                 self._matrices[irr.label] = build_matrices(self, irr)
+            # cached and shared: hand out immutable matrices in a tuple
+            self._matrices[irr.label] = tuple(sp.ImmutableMatrix(m) for m in self._matrices[irr.label])
         return self._matrices[irr.label]
 
     def _grey_matrices(self, irr):

@@ -23,19 +23,23 @@ Examples
 """
 
 from dataclasses import dataclass, field
-from functools import lru_cache
+from functools import cached_property, lru_cache
 from itertools import product
 
 import numpy as np
 import sympy as sp
 
-from tensym.errors import InvalidArgumentError, InvalidSpecError, RankLimitError
+from tensym.errors import InvalidArgumentError, InvalidSpecError, MemoryLimitError, RankLimitError
 
-__all__ = ["TensorSpec", "INDEX_LETTERS", "MAX_RANK"]
+__all__ = ["TensorSpec", "INDEX_LETTERS", "MAX_RANK", "MEMORY_LIMIT", "require_memory", "orbit_table_bytes"]
 
 INDEX_LETTERS = "ijklmnpqrstuvw"
 #: Highest rank accepted (3**MAX_RANK components are enumerated once per spec).
 MAX_RANK = 10
+#: Memory budget in bytes for one table or dense array built on a tensor space
+#: (3 GiB).  Allocations estimated above it raise :class:`MemoryLimitError`
+#: before anything is allocated; set this module attribute to change it.
+MEMORY_LIMIT = 3 * 2**30
 
 
 def _flag(name, value):
@@ -120,12 +124,20 @@ def _cycle_lengths(perm):
 
 
 class _Orbits:
-    """Orbits of index tuples under the signed permutation group (private kernel data).
+    """Orbits of index tuples under the signed permutation group (private kernel data, read-only).
 
-    Attributes: reps (tuple of index tuples, one per non-vanishing orbit, in
-    enumeration order), orbit_of (int array over flat indices: orbit number or
-    -1), sign_of (int array: +1/-1, 0 for vanishing), members (list of flat-index
-    arrays per orbit).
+    Attributes: rank; reps (tuple of index tuples, one per non-vanishing orbit,
+    in enumeration order); orbit_of (int64 array over flat indices: orbit
+    number or -1); sign_of (int64 array: +1/-1, 0 for vanishing); members
+    (tuple of int64 flat-index arrays, one per orbit); weights (int64 array
+    3**(rank-1), ..., 1 turning an index tuple into its flat index).
+
+    The object is shared by every spec with the same rank and index symmetry
+    (a process-wide cache), so it is frozen: its attributes cannot be
+    rebound and every array has ``flags.writeable = False``.  The kernels'
+    derived tables ``_reparr`` (the representatives as an int64 array
+    (n, rank)) and ``_agg`` (member order, signs and orbit starts for summing
+    columns into orbits) are computed once on first use, read-only too.
     """
 
     def __init__(self, rank, gens):
@@ -133,7 +145,7 @@ class _Orbits:
         orbit_of = np.full(n, -1, dtype=np.int64)
         sign_of = np.zeros(n, dtype=np.int64)
         visited = np.zeros(n, dtype=bool)
-        weights = 3 ** np.arange(rank - 1, -1, -1)
+        weights = (3 ** np.arange(rank - 1, -1, -1)).astype(np.int64)
         reps, members = [], []
         for flat, idx in enumerate(product(range(3), repeat=rank)):
             if visited[flat]:
@@ -161,22 +173,130 @@ class _Orbits:
             orbit_of[flats] = o
             sign_of[flats] = np.array(list(signs.values()), dtype=np.int64)
             reps.append(idx)
-            members.append(flats)
-        self.rank = rank
-        self.reps = tuple(reps)
-        self.orbit_of = orbit_of
-        self.sign_of = sign_of
-        self.members = members
-        self.weights = weights
+            members.append(_read_only(flats))
+        d = self.__dict__
+        d["rank"] = rank
+        d["reps"] = tuple(reps)
+        d["orbit_of"] = _read_only(orbit_of)
+        d["sign_of"] = _read_only(sign_of)
+        d["members"] = tuple(members)
+        d["weights"] = _read_only(weights)
+
+    def __setattr__(self, name, value):
+        raise AttributeError(f"the orbit tables of a tensor space are shared and read-only (cannot set {name!r})")
+
+    def __delattr__(self, name):
+        raise AttributeError(f"the orbit tables of a tensor space are shared and read-only (cannot delete {name!r})")
 
     def locate(self, idx):
         """(orbit, sign) of an index tuple; orbit -1 for a vanishing component."""
         f = int(np.dot(self.weights, idx))
         return int(self.orbit_of[f]), int(self.sign_of[f])
 
+    @cached_property
+    def _reparr(self):
+        """The representatives as a read-only int64 array of shape (n_orbits, rank)."""
+        return _read_only(np.array(self.reps, dtype=np.int64).reshape(len(self.reps), self.rank))
+
+    @cached_property
+    def _agg(self):
+        """(order, signs, starts): flat indices of the non-vanishing components sorted by orbit
+        (stable), their signs, and where each orbit starts in ``order`` (read-only int64 arrays)."""
+        flats = np.nonzero(self.orbit_of >= 0)[0]
+        order = flats[np.argsort(self.orbit_of[flats], kind="stable")]
+        starts = np.searchsorted(self.orbit_of[order], np.arange(len(self.reps)))
+        return _read_only(order), _read_only(self.sign_of[order]), _read_only(starts)
+
+    def dense_bytes(self, columns="components", *, itemsize=8, copies=1):
+        """Bytes of ``copies`` dense arrays with one row per orbit.
+
+        ``columns`` is ``"components"`` (3**rank columns: an operation's action
+        on every component, as the Kronecker kernels build it) or ``"orbits"``
+        (n_orbits columns: an action matrix on the reduced space).
+        """
+        width = {"components": 3**self.rank, "orbits": len(self.reps)}[columns]
+        return len(self.reps) * width * itemsize * copies
+
+    def require(self, nbytes, what):
+        """Refuse an allocation of about ``nbytes`` bytes past :data:`MEMORY_LIMIT`.
+
+        Raises
+        ------
+        MemoryLimitError
+            With the estimate, the limit and what to change.
+        """
+        require_memory(nbytes, what, rank=self.rank, dim=len(self.reps))
+
+
+def _read_only(arr):
+    """A read-only view of ``arr`` over a read-only base, so that the flag cannot be switched back on."""
+    if arr.base is not None:  # a view of a writable array: own the data first
+        arr = arr.copy()
+    arr.flags.writeable = False
+    view = arr.view()
+    view.flags.writeable = False
+    return view
+
+
+#: Bytes per tensor component of the orbit tables (flat int64 tables, the
+#: member arrays and the representative tuples; about 260 measured at rank 10
+#: without index symmetry, rounded up).
+_TABLE_BYTES_PER_COMPONENT = 320
+
+
+def _format_bytes(n):
+    for unit, size in (("GiB", 2**30), ("MiB", 2**20), ("KiB", 2**10)):
+        if n >= size:
+            return f"{n / size:.1f} {unit}"
+    return f"{int(n)} bytes"
+
+
+def require_memory(nbytes, what, *, rank=None, dim=None):
+    """Raise :class:`MemoryLimitError` when an allocation of ``nbytes`` would pass :data:`MEMORY_LIMIT`.
+
+    Parameters
+    ----------
+    nbytes : int
+        Estimated size in bytes.
+    what : str
+        What would be allocated, for the message (e.g. ``"the orbit tables"``).
+    rank, dim : int, optional
+        The tensor space, for the message.
+
+    Examples
+    --------
+    >>> require_memory(2**20, "a small table")
+    >>> require_memory(2**50, "a huge table")
+    Traceback (most recent call last):
+    ...
+    tensym.errors.MemoryLimitError: a huge table would need about 1048576.0 GiB, over the memory limit of 3.0 GiB (tensym.tensors.spec.MEMORY_LIMIT); use a lower rank or more index symmetry
+    """
+    limit = MEMORY_LIMIT
+    if nbytes <= limit:
+        return
+    space = ""
+    if rank is not None:
+        space = f" for the rank-{rank} tensor space" + (f" ({dim} components after index symmetry)" if dim else "")
+    raise MemoryLimitError(
+        f"{what}{space} would need about {_format_bytes(nbytes)}, over the memory limit of "
+        f"{_format_bytes(limit)} (tensym.tensors.spec.MEMORY_LIMIT); use a lower rank or more index symmetry"
+    )
+
+
+def orbit_table_bytes(rank):
+    """Upper estimate in bytes of the orbit tables of a rank-``rank`` tensor space.
+
+    Examples
+    --------
+    >>> orbit_table_bytes(4) == 81 * _TABLE_BYTES_PER_COMPONENT
+    True
+    """
+    return 3**rank * _TABLE_BYTES_PER_COMPONENT
+
 
 @lru_cache(maxsize=256)
 def _orbits(rank, gens):
+    require_memory(orbit_table_bytes(rank), "the orbit tables", rank=rank)
     return _Orbits(rank, gens)
 
 
@@ -263,7 +383,14 @@ class TensorSpec:
 
     @property
     def orbits(self):
-        """Private kernel data: the orbit structure of index tuples (shared, do not mutate)."""
+        """Private kernel data: the orbit structure of index tuples (shared and read-only).
+
+        Raises
+        ------
+        MemoryLimitError
+            When the tables (about 320 bytes per component, 3**rank
+            components) would pass :data:`MEMORY_LIMIT`.
+        """
         return _orbits(self.rank, self._gens)
 
     @property
