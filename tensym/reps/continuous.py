@@ -12,8 +12,11 @@ Groups and labels (standard setting: axis z, sigma_v normal to x, C2' along x)
   sign is the character at sigma_v (so z transforms as Σu+).
 
 Characters are functions of the rotation angle phi: D^l has
-sin((l + 1/2) phi) / sin(phi / 2) = 1 + 2 sum_m cos(m phi), a two-dimensional
-|m| irrep 2 cos(m phi).
+sin((l + 1/2) phi) / sin(phi / 2) = 1 + 2 sum_m cos(m phi) (tables print the
+sum up to l = 4 and the closed form above), a two-dimensional |m| irrep
+2 cos(m phi).  At an operation of finite order n the exact characters are
+periodic in l and m with period n, which makes any weight cost O(n).
+Truncated tables go up to ``MAX_UP_TO``.
 
 Decomposition (exact): a space's infinitesimal action A = lie_action(L_axis)
 has eigenvalues i m with integer m; the number of weights m is
@@ -32,6 +35,7 @@ Examples
 
 from dataclasses import dataclass
 import difflib
+import numbers
 
 import sympy as sp
 
@@ -39,10 +43,19 @@ from tensym.errors import RepresentationError, UnknownIrrepError
 from tensym.groups.operations import Operation
 
 __all__ = ["ContinuousIrrep", "ContinuousTable", "continuous_table", "continuous_decompose", "PHI",
-           "continuous_character"]
+           "continuous_character", "MAX_UP_TO", "check_up_to", "axial_restriction"]
 
 #: The rotation angle symbol used in continuous character tables.
 PHI = sp.Symbol("phi", real=True)
+#: Highest weight (l for SO(3) and O(3), |m| for the axial groups) of a truncated
+#: table or correlation table: 2 * 1001 rows for O(3), about a second to build and
+#: print (a correlation to an axial group has l + 1 entries in row l, so its size
+#: grows as the square of the weight).
+MAX_UP_TO = 1000
+#: Rows of D^l up to this l are written as the sum 1 + 2 cos(phi) + ... + 2 cos(l phi);
+#: higher ones in the closed form sin((l + 1/2) phi) / sin(phi / 2).
+_SUM_FORM_UP_TO = 4
+_SIN_HALF = sp.sin(PHI / 2)
 
 _GREEK = ["Σ", "Π", "Δ", "Φ", "Γ", "H", "I", "K", "L"]
 _GREEK_ASCII = {"sigma": "Σ", "pi": "Π", "delta": "Δ", "phi": "Φ", "gamma": "Γ"}
@@ -199,6 +212,40 @@ def _std(group, op):
     return op.conjugated(sp.Matrix(q).T)
 
 
+_PERIODS = {}
+
+
+def _period(proper):
+    """n >= 1 with R**n = 1 for a proper rotation R, proven exactly; 0 when none is found.
+
+    The candidate is the numeric order (:func:`tensym.groups.operations.proper_order`,
+    up to 240); it is accepted only when cos(n t) = T_n(cos t) equals 1
+    exactly (Chebyshev recurrence on cos t = (tr R - 1)/2).  Then the
+    characters of D^l (sin((l + 1/2) t)/sin(t/2)) and of the weights m
+    (cos m t, sin m t) are periodic in l and m with period n, so an irrep of
+    any weight costs O(n) exact operations instead of O(l).  Cached per
+    operation.
+    """
+    key = proper.key
+    hit = _PERIODS.get(key)
+    if hit is not None:
+        return hit
+    from tensym.groups.operations import proper_order
+
+    c = sp.expand((proper.matrix.trace() - 1) / 2)
+    n = proper_order(proper.numeric) if c != 1 else 1
+    if n > 1:
+        t_prev, t_cur = sp.Integer(1), c
+        for _ in range(1, n):
+            t_prev, t_cur = t_cur, sp.expand(2 * c * t_cur - t_prev)
+        if sp.radsimp(t_cur) != 1:
+            n = 0
+    if len(_PERIODS) > 4096:
+        _PERIODS.clear()
+    _PERIODS[key] = n
+    return n
+
+
 def continuous_character(group, irrep, op):
     """Exact character of a continuous-group irrep at an operation of the group.
 
@@ -216,19 +263,23 @@ def continuous_character(group, irrep, op):
     factor = 1
     if det == -1 and ext == "i":
         factor = 1 if irrep.parity == "g" else -1
+    period = _period(proper)
     if core == "SO3":
         from tensym.reps.spaces import _chi_l
 
-        return factor * _chi_l(irrep.m, sp.expand(proper.matrix.trace()))
+        if period == 1:  # the identity: the dimension
+            return sp.Integer(factor * (2 * irrep.m + 1))
+        l = irrep.m % period if period else irrep.m
+        return factor * _chi_l(l, sp.expand(proper.matrix.trace()))
     M = proper.matrix
     # proper part: a rotation about z, or (Dinf) a 2-fold normal to z
     if M[2, 2] == 1 and M[0, 2] == 0 and M[1, 2] == 0:
         c, s = M[0, 0], M[1, 0]
         if irrep.m == 0:
             return sp.Integer(factor)
-        # cos(m phi), sin(m phi) from Chebyshev recurrences on (c, s)
+        # cos(m phi), sin(m phi) from Chebyshev recurrences on (c, s); m modulo the rotation's period
         cm, sm = sp.Integer(1), sp.Integer(0)
-        for _ in range(irrep.m):
+        for _ in range(irrep.m % period if period else irrep.m):
             cm, sm = sp.expand(cm * c - sm * s), sp.expand(sm * c + cm * s)
         if not irrep.is_real:
             return factor * sp.expand(cm + sp.I * sp.sign(irrep.sign) * sm)
@@ -323,8 +374,11 @@ class ContinuousTable:
         core, ext = self._core, self._ext
         m = irr.m
         if core == "SO3":
-            rot = 1 + 2 * sum(sp.cos(k * PHI) for k in range(1, m + 1))
-            rot = sp.Integer(1) if m == 0 else rot
+            if m <= _SUM_FORM_UP_TO:
+                rot = 1 + 2 * sum(sp.cos(k * PHI) for k in range(1, m + 1))
+                rot = sp.Integer(1) if m == 0 else rot
+            else:  # the closed form: O(1) to build and to print
+                rot = sp.sin(sp.Rational(2 * m + 1, 2) * PHI, evaluate=False) / _SIN_HALF
             row = [sp.Integer(irr.dim), rot]
             if ext:
                 p = 1 if irr.parity == "g" else -1
@@ -389,8 +443,27 @@ class ContinuousTable:
 
 
 def continuous_table(group, up_to=4):
-    """The (truncated) character table of a continuous group."""
-    return ContinuousTable(group, up_to)
+    """The (truncated) character table of a continuous group.
+
+    Raises
+    ------
+    InvalidOptionError
+        For ``up_to`` that is not a whole number from 0 to :data:`MAX_UP_TO`.
+    """
+    return ContinuousTable(group, check_up_to(up_to))
+
+
+def check_up_to(up_to):
+    """``up_to`` as an int from 0 to MAX_UP_TO, else InvalidOptionError (shared by the table and correlate)."""
+    from tensym.errors import InvalidOptionError
+
+    if isinstance(up_to, bool) or not isinstance(up_to, numbers.Integral) or up_to < 0:
+        raise InvalidOptionError(f"up_to must be a non-negative integer, got {str(up_to)[:40]!r}")
+    up_to = int(up_to)
+    if up_to > MAX_UP_TO:
+        raise InvalidOptionError(f"up_to must be at most {MAX_UP_TO} (the weight of the last row of a truncated "
+                                 f"table), got {up_to if up_to < 10**12 else str(up_to)[:12] + '...'}")
+    return up_to
 
 
 # ---------------------------------------------------------------------------
@@ -494,6 +567,44 @@ def continuous_decompose(space, group, *, real=True):
     return Decomposition(group.names.hm, tuple(labs), tuple(counts[k][0] for k in labs),
                          tuple(counts[k][1].dim for k in labs), tuple(counts[k][1].latex for k in labs), real,
                          ("*continuous*",))
+
+
+def axial_restriction(group, l, parity_sign, *, real=True):
+    """The decomposition of D^l (inversion acting as ``parity_sign``) over an axial group, in closed form.
+
+    D^l has one weight m for each m = -l .. l about the axis.  The weight-0
+    function is the zonal harmonic P_l(z/r): the 2-fold C2' (along x) acts
+    on it as (-1)^l and the reflection sigma_v = i C2' as parity_sign * (-1)^l,
+    which fixes the Σ sign; the weights +-m (m >= 1) form the two-dimensional
+    irrep of weight m (or its two complex members), and the inversion acts on
+    everything as ``parity_sign``.  The result equals
+    ``continuous_decompose(harmonics(l, parity), group)`` (tested) at O(l) cost.
+
+    Examples
+    --------
+    >>> from tensym.groups import point_group
+    >>> print(axial_restriction(point_group("Dinfh"), 1, -1))
+    Σu+ + Πu
+    """
+    from tensym.reps.decompose import Decomposition
+
+    core, ext = _kind(group)
+    if core == "SO3":
+        raise RepresentationError(f"{group.names.hm} is not an axial group")
+    par = ("g" if parity_sign == 1 else "u") if ext == "i" else ""
+    zonal_c2 = (-1) ** l  # C2' on P_l(z/r)
+    if core == "Dinf":
+        sign = parity_sign * zonal_c2 if ext in ("i", "det") else zonal_c2
+        irreps = [_make_irrep(core, ext, 0, par, sign)]
+    else:
+        irreps = [_make_irrep(core, ext, 0, par)]
+    for m in range(1, l + 1):
+        if core == "Cinf" and not real:
+            irreps += [_make_irrep(core, ext, m, par, 0, 1), _make_irrep(core, ext, m, par, 0, -1)]
+        else:
+            irreps.append(_make_irrep(core, ext, m, par))
+    return Decomposition(group.names.hm, tuple(i.label for i in irreps), (1,) * len(irreps),
+                         tuple(i.dim for i in irreps), tuple(i.latex for i in irreps), real, ("*continuous*",))
 
 
 def _kernel_in(M, P):

@@ -14,6 +14,7 @@ A1g + B1g
 """
 
 from dataclasses import dataclass
+import math
 
 import sympy as sp
 
@@ -114,7 +115,10 @@ def correlate(group, subgroup, *, up_to=4, real=True):
     subgroup : PointGroup, ContinuousGroup or str
         A subgroup in the same frame (see the module docstring).
     up_to : int, keyword-only
-        For a continuous ``group``: rows up to this l (SO(3), O(3)) or |m|.
+        For a continuous ``group``: rows up to this l (SO(3), O(3)) or |m|,
+        at most ``tensym.reps.continuous.MAX_UP_TO`` (1000).  Each row costs
+        O(classes) exact operations (characters are periodic in the weight
+        at operations of finite order).
     real : bool, keyword-only
         Real forms of complex pairs (default) or their members.
 
@@ -129,6 +133,8 @@ def correlate(group, subgroup, *, up_to=4, real=True):
         symbol fits several inequivalent embeddings.
     InvalidArgumentError
         For a continuous subgroup of a group other than SO(3), O(3).
+    InvalidOptionError
+        For ``up_to`` that is not a whole number from 0 to MAX_UP_TO.
 
     Examples
     --------
@@ -140,10 +146,9 @@ def correlate(group, subgroup, *, up_to=4, real=True):
     B1u + B2u
     """
     G = as_group_arg(group, "group")
-    if isinstance(up_to, bool) or not isinstance(up_to, int) or up_to < 0:
-        from tensym.errors import InvalidOptionError
+    from tensym.reps.continuous import check_up_to
 
-        raise InvalidOptionError(f"up_to must be a non-negative integer, got {up_to!r}")
+    up_to = check_up_to(up_to)
     H = _subgroup_in(G, subgroup)
     from tensym.reps.decompose import decomposition_from
     from tensym.reps.reduction import multiplicities
@@ -156,13 +161,12 @@ def correlate(group, subgroup, *, up_to=4, real=True):
     reps = [c.representative for c in th.classes]
     rows, labels, tex = [], [], []
     if getattr(G, "is_continuous", False):
-        from tensym.reps.continuous import continuous_character, continuous_table
+        from tensym.reps.continuous import continuous_table
 
         ct = continuous_table(G, up_to)
         pool = ct.real_irreps if real else ct.irreps
-        for irr in pool:
-            chars = tuple(_realify(continuous_character(G, irr, op)) for op in reps)
-            rows.append(decomposition_from(th, multiplicities(th, chars, real=real), real))
+        for irr, mult in zip(pool, _continuous_rows(G, th, pool, real)):
+            rows.append(decomposition_from(th, mult, real))
             labels.append(irr.label)
             tex.append(irr.latex)
     else:
@@ -184,9 +188,60 @@ def _realify(v):
     return sp.nsimplify(sp.expand(v)) if not v.is_Rational else v
 
 
+def _continuous_rows(G, th, pool, real):
+    """Multiplicities (label -> int) of each continuous irrep of ``pool`` restricted to the finite group of ``th``.
+
+    The characters at an operation whose proper part has finite order n are
+    periodic in the weight w (l or |m|) with period n, except at operations
+    whose proper part is the identity (E, i), where D^l has 2l + 1 and an
+    axial irrep its fixed dimension.  With N the least common multiple of the
+    periods, chi_(w + N) - chi_w is therefore the same vector for every
+    w >= 1 of one family (same parity and sign), and by linearity of the
+    reduction formula so is mult_(w + N) - mult_w.  The rows up to weight 2N
+    are reduced exactly; a higher weight w = r + k N with N < r <= 2N is
+    mult_r + k (mult_r - mult_(r - N)), checked against the dimension.  When
+    a period cannot be proven (an operation of unknown or infinite order), every
+    row is reduced directly.
+    """
+    from tensym.groups.operations import Operation
+    from tensym.reps.continuous import _period, _std, continuous_character
+    from tensym.reps.reduction import multiplicities
+
+    reps = [c.representative for c in th.classes]
+    periods = []
+    for op in reps:
+        g = _std(G, op)
+        proper = g if g.det == 1 else Operation(sp.ImmutableMatrix(-g.matrix))
+        periods.append(_period(proper))
+    N = math.lcm(*[n for n in periods if n > 1]) if all(periods) else 0
+
+    def direct(irr):
+        chars = tuple(_realify(continuous_character(G, irr, op)) for op in reps)
+        return multiplicities(th, chars, real=real)
+
+    known = {}  # (family, weight) -> multiplicities
+    out = []
+    dims = {i.label: i.dim for i in (th.real_irreps if real else th.irreps)}
+    for irr in pool:
+        family = (irr.parity, irr.sign, irr.is_real)
+        w = irr.m
+        if not N or w <= 2 * N:
+            mult = direct(irr)
+        else:
+            r = N + 1 + (w - N - 1) % N
+            k = (w - r) // N
+            base, prev = known[(family, r)], known[(family, r - N)]
+            mult = {lab: base[lab] + k * (base[lab] - prev[lab]) for lab in base}
+            if any(v < 0 for v in mult.values()) or sum(v * dims[lab] for lab, v in mult.items()) != irr.dim:
+                mult = direct(irr)  # pragma: no cover - the extrapolation is exact
+        if w <= 2 * N:
+            known[(family, w)] = mult
+        out.append(mult)
+    return out
+
+
 def _continuous_sub(G, H, up_to, real):
-    from tensym.reps.continuous import _kind, continuous_decompose, continuous_table
-    from tensym.reps.spaces import harmonics
+    from tensym.reps.continuous import _kind, axial_restriction, continuous_table
 
     core, ext = _kind(G)
     if core != "SO3":
@@ -196,7 +251,7 @@ def _continuous_sub(G, H, up_to, real):
     labels, rows, tex = [], [], []
     for irr in ct.real_irreps:
         par = irr.parity or ("g" if irr.m % 2 == 0 else "u")
-        rows.append(continuous_decompose(harmonics(irr.m, par), H, real=real))
+        rows.append(axial_restriction(H, irr.m, 1 if par == "g" else -1, real=real))
         labels.append(irr.label)
         tex.append(irr.latex)
     return CorrelationTable(_name(G), _name(H), tuple(labels), tuple(rows), tuple(tex))

@@ -92,6 +92,18 @@ def to_int(value, what="multiplicity"):
     return int(v)
 
 
+def _weights(table, label):
+    """conj(chi(C)) |C| / |G| per class as Cyclotomic numbers, cached on the table (private)."""
+    cache = table.__dict__.setdefault("_reduction_weights", {})
+    hit = cache.get(label)
+    if hit is None:
+        row = table._cyclo(label)
+        order = table.order
+        hit = tuple(x.conjugate() * Fraction(c.size, order) for x, c in zip(row, table.classes))
+        cache[label] = hit
+    return hit
+
+
 def multiplicities(table, chars, *, real=True):
     """Mapping label -> multiplicity (int) of the table's irreps in characters ``chars``.
 
@@ -101,17 +113,19 @@ def multiplicities(table, chars, *, real=True):
     irreps = table.irreps
     sizes = [c.size for c in table.classes]
     order = table.order
-    rational = all(sp.sympify(v).is_Rational for v in chars)
+    values = [sp.sympify(v) for v in chars]
+    rational = all(v.is_Rational for v in values)
+    if rational:
+        qs = [Fraction(int(v.p), int(v.q)) for v in values]
     out = {}
     for irr in irreps:
         if rational:
-            row = table._cyclo(irr.label)
-            n = row[0].n
-            total = Cyclotomic.rational(0, n)
-            for s, v, x in zip(sizes, chars, row):
-                q = Fraction(int(sp.Rational(v).p), int(sp.Rational(v).q)) * s
-                total = total + x.conjugate() * q
-            val = total / order
+            weights = _weights(table, irr.label)
+            total = Cyclotomic.rational(0, weights[0].n)
+            for w, q in zip(weights, qs):
+                if q:
+                    total = total + w * q
+            val = total
             if not val.is_rational:
                 raise ArithmeticError(f"multiplicity of {irr.label} is not rational: {val.to_sympy()}")
             q = val.rational_value()

@@ -121,8 +121,9 @@ def _fischer(n):
     return [factorial(a) * factorial(b) * factorial(c) for a, b, c in monomials(n)]
 
 
+@lru_cache(maxsize=8192)
 def _chi_l(l, trace):
-    """Character of D^l at a proper rotation with the given trace: 1 + 2 sum_m T_m(cos t)."""
+    """Character of D^l at a proper rotation with the given trace: 1 + 2 sum_m T_m(cos t) (cached)."""
     c = (sp.sympify(trace) - 1) / 2
     total = sp.Integer(1)
     t_prev, t_cur = sp.Integer(1), c

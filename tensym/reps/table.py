@@ -519,7 +519,8 @@ def character_table(group, *, up_to=4):
     UnknownGroupError, InvalidGroupError
         For a bad group argument.
     InvalidOptionError
-        If ``up_to`` is not a non-negative integer.
+        If ``up_to`` is not a whole number from 0 to
+        ``tensym.reps.continuous.MAX_UP_TO`` (1000).
 
     Notes
     -----
@@ -562,10 +563,7 @@ def character_table(group, *, up_to=4):
 
     G = as_group_arg(group)
     if getattr(G, "is_continuous", False):
-        from tensym.errors import InvalidOptionError
         from tensym.reps.continuous import continuous_table
 
-        if isinstance(up_to, bool) or not isinstance(up_to, int) or up_to < 0:
-            raise InvalidOptionError(f"up_to must be a non-negative integer, got {up_to!r}")
-        return continuous_table(G, up_to)
+        return continuous_table(G, up_to)  # validates up_to (0 .. MAX_UP_TO)
     return finite_table(G)
