@@ -7,12 +7,21 @@ Conventions
 * The character projector of an irrep Gamma of dimension d is
   ``P = (d/|G|) sum_g conj(chi(g)) g``; it is idempotent and the projectors of
   all irreps add up to the identity.
-* Partner sets come from the projectors with matrix elements,
+* Partner sets are those of the projectors with matrix elements,
   ``P_ij = (d/|G|) sum_g conj(D_ij(g)) g``: for u in the image of P_11 the
   functions f_i = P_i1 u transform as ``g f_j = sum_i D_ij(g) f_i`` with the
   irrep matrices of :meth:`CharacterTable.matrices`.  The image of P_11 is
-  given an orthonormal basis (Gram-Schmidt in the space's inner product,
-  :meth:`Space.gram`), so all partner functions together are orthonormal.
+  given an orthonormal basis (Gram-Schmidt, in order, of the pivot columns of
+  P_11 in the space's inner product, :meth:`Space.gram`), so all partner
+  functions together are orthonormal.
+* Method: the sums over the group are never formed.  The intertwiners T
+  (D(g) T = T D_Gamma(g) for the generators g) are solved exactly as a null
+  space over the number field of the generators' entries; their first columns
+  span the image of P_11, P_11 is the Gram-orthogonal projector onto that
+  span, and P_i1 u is the i-th column of the intertwiner through u.  The
+  results are identical to the whole-group sums (kept as the oracle
+  ``tensym.testing.brute_force_partners``); D6h on degree-8 polynomials takes
+  about a second instead of a minute (benchmarks/hangs.py).
 
 Examples
 --------
@@ -23,6 +32,7 @@ Examples
 """
 
 from dataclasses import dataclass, field
+import math
 
 import numpy as np
 import sympy as sp
@@ -142,10 +152,18 @@ _PROJECTORS = {}
 
 
 def _project_polynomial(expr, G, irr, conj_chars, scale):
-    """Fast path: the projector as a cached exact matrix on each degree's monomials."""
-    from tensym.reps.linalg import group_actions
+    """Fast path: the projector as a cached exact matrix on each degree's monomials.
+
+    The character projector P = (d/|G|) sum_g conj(chi(g)) D(g) is self-adjoint
+    for the Fischer product (D(g) preserves it and the characters satisfy
+    chi(g^-1) = conj(chi(g))), so it is the orthogonal projector onto the
+    isotypic component: P = Q (Q^H F Q)^-1 Q^H F with Q the columns of the
+    intertwiners solved on the generators (see :func:`_intertwiners`).  The
+    sum over the group is never formed; ``conj_chars`` and ``scale`` are
+    kept for the signature of the slow formula.
+    """
     from tensym.reps.spaces import polynomials
-    from tensym.reps.table import group_key
+    from tensym.reps.table import finite_table, group_key
 
     poly = sp.Poly(sp.expand(expr), X, Y, Z)
     parts = {}
@@ -157,16 +175,7 @@ def _project_polynomial(expr, G, irr, conj_chars, scale):
         P = _PROJECTORS.get(key)
         if P is None:
             space = polynomials(n)
-            D = group_actions(space, G)
-            row = unify([to_dm(sp.Matrix([conj_chars])), D[0]])
-            dom = row[0].domain
-            crow = row[0].to_list()[0]
-            acc = None
-            for c, m in zip(crow, D):
-                if c != dom.zero:
-                    term = m.convert_to(dom) * c
-                    acc = term if acc is None else acc + term
-            P = sp.ImmutableMatrix(acc.to_Matrix().applyfunc(sp.expand) * scale)
+            P = _isotypic_projector(space, G, finite_table(G), irr)
             if len(_PROJECTORS) > 2048:
                 _PROJECTORS.clear()
             _PROJECTORS[key] = P
@@ -177,6 +186,28 @@ def _project_polynomial(expr, G, irr, conj_chars, scale):
         w = P * v
         total += sum(sp.expand(w[i]) * X ** a * Y ** b * Z ** cc for i, (a, b, cc) in enumerate(monomials(n)))
     return sp.expand(total)
+
+
+def _isotypic_projector(V, G, t, irr):
+    """Exact ImmutableMatrix of the orthogonal projector onto the Gamma-isotypic part of V (Gram inner product).
+
+    A real form of a complex pair uses its real 2x2 matrices, whose
+    intertwiners span the sum of the two members' isotypic parts (with
+    dependent columns: a basis is kept).
+    """
+    Ts = _intertwiners(V, G, t, irr)
+    dim = V.dim
+    if not Ts:
+        return sp.ImmutableMatrix(sp.zeros(dim, dim))
+    Q_s = sp.Matrix.hstack(*Ts)
+    # the columns span the isotypic part; for a real form of a complex pair they are dependent
+    # (its intertwiner space is twice as large), so keep the pivot columns
+    _, piv = to_dm(Q_s).rref()
+    Q_s = Q_s.extract(list(range(dim)), list(piv))
+    QH_s = Q_s.T if irr.is_real else Q_s.H.applyfunc(sp.expand)
+    Gm, Q, QH = unify([to_dm(sp.Matrix(V.gram())), to_dm(Q_s), to_dm(QH_s)])
+    P = Q * (QH * Gm * Q).inv() * QH * Gm
+    return sp.ImmutableMatrix(dim, dim, [sp.expand(v) for v in P.to_Matrix()])
 
 
 def _project_rotation_group(expr, G, irrep):
@@ -288,7 +319,7 @@ def readable(expr):
         return e
     coeffs = p.coeffs()
     lead = coeffs[0]
-    ratios = [sp.nsimplify(sp.radsimp(c / lead)) for c in coeffs]
+    ratios = [r if r.is_Rational else sp.nsimplify(sp.radsimp(r)) for r in (c / lead for c in coeffs)]
     if not all(r.is_Rational for r in ratios):
         return e
     den = sp.ilcm(*[r.q for r in ratios]) if len(ratios) > 1 else ratios[0].q
@@ -452,59 +483,118 @@ def symmetry_adapted(space, group, *, real=True):
     return SymmetryAdaptedBasis(_group_label(G), repr(V), tuple(sets), matrix)
 
 
+def _intertwiners(V, G, t, irr):
+    """A basis of Hom_G(Gamma, V): matrices T (dim x d) with D_V(g) T = T D_Gamma(g) for the generators.
+
+    The conditions are linear in the dim * d entries of T (row-major
+    vec(T): kron(D_V(g), 1) - kron(1, D_Gamma(g)^T)), written with integer
+    coordinates over the number field of the generators' entries
+    (:func:`tensym.exact.fields.field_of`) and reduced fraction-free by
+    :func:`tensym.exact.fields.rref_field`; one basis matrix per free
+    column.  Generators suffice because the conditions for g and h imply the
+    one for g h.  Returns a list of sympy Matrices.
+    """
+    from tensym.exact.fields import field_of, rref_field
+    from tensym.reps.linalg import _space_action_dm
+
+    ops = G.operations
+    gens = [G.index(g) for g in G.generators if not g.is_identity or g.time_reversal]
+    d, dim = irr.dim, V.dim
+    irr_mats = t.matrices(irr.label)
+    space_mats = [_space_action_dm(V, ops[i]).to_Matrix() for i in gens]
+    entries = [x for M in space_mats for x in M] + [x for i in gens for x in irr_mats[i]]
+    uniq = list(dict.fromkeys(entries)) or [sp.Integer(1)]  # few distinct numbers: convert each once
+    K, _den, uniq_ints = field_of(uniq)
+    where = {x: k for k, x in enumerate(uniq)}
+    ints = [uniq_ints[where[x]] for x in entries]
+    N = K.degree
+    size = dim * d
+    rows = []
+    pos = 0
+    blocks_v, blocks_g = [], []
+    for _ in gens:
+        A = np.empty((N, dim, dim), dtype=object)
+        for e in range(dim * dim):
+            A[:, e // dim, e % dim] = ints[pos + e]
+        pos += dim * dim
+        blocks_v.append(A)
+    for _ in gens:
+        B = np.empty((N, d, d), dtype=object)
+        for e in range(d * d):
+            B[:, e // d, e % d] = ints[pos + e]
+        pos += d * d
+        blocks_g.append(B)
+    eye_v, eye_g = np.eye(dim, dtype=object), np.eye(d, dtype=object)
+    for A, B in zip(blocks_v, blocks_g):
+        M = np.stack([np.kron(A[c], eye_g) - np.kron(eye_v, B[c].T) for c in range(N)])
+        for r in range(size):
+            row = M[:, r, :]
+            if any(row.ravel()):
+                rows.append(row)
+    reduced = rref_field(K, rows, list(range(size)))
+    pivots = {col for col, _, _ in reduced}
+    lcm = math.lcm(*[g for _, _, g in reduced]) if reduced else 1
+    out = []
+    for f in range(size):
+        if f in pivots:
+            continue
+        v = np.zeros((N, size), dtype=object)
+        v[0, f] = lcm
+        for col, row, g in reduced:
+            v[:, col] = -row[:, f] * (lcm // g)
+        T = sp.Matrix(dim, d, [K.to_sympy(v[:, j], lcm) for j in range(size)])
+        out.append(T)
+    return out
+
+
 def _partners(V, G, t, irr, m, Gram):
+    """Partner sets of irrep ``irr`` (multiplicity m) in V, from intertwiners on the generators.
+
+    With T_1 .. T_m a basis of Hom_G(Gamma, V) and B = (T_k e_1), the image W of
+    the projector P_11 = (d/|G|) sum_g conj(D_11(g)) D(g) is the span of B, and
+    P_11 is the orthogonal projector onto W in the Gram inner product (the
+    irrep matrices are unitary and D(g) preserves the Gram form), so
+    P_11 = B C with C = (B^H G B)^-1 B^H G.  Its pivot columns u, orthogonalised
+    as before, and the partners P_i1 u = T_u e_i (T_u = sum_k (C u)_k T_k)
+    are exactly those of the whole-group sum, which is never formed
+    (``tensym.testing.brute_force_partners`` keeps it as the oracle).
+    """
     if irr.label not in t.labels:
         return _real_pair_partners(V, G, t, irr, m, Gram)
     d = irr.dim
-    n = G.order
-    ops = G.operations
-    gens, gmats_space, walk = generator_data(V, G)
-    irr_mats = t.matrices(irr.label)
-    gen_irr = [to_dm(sp.Matrix(irr_mats[i])) for i in gens]
-    all_m = unify(gmats_space + gen_irr + [Gram.convert_to(Gram.domain)]) if gens else [Gram]
-    k = len(gens)
-    gm_space, gm_irr, Gm = all_m[:k], all_m[k:2 * k], all_m[-1]
-    dom = Gm.domain
     dim = V.dim
-    # D(g) and D_Gamma(g) for all g along the walk
-    Ds = [DomainMatrix.eye(dim, dom)] + [None] * (n - 1)
-    Dg = [DomainMatrix.eye(d, dom)] + [None] * (n - 1)
-    for p, kk, e in walk:
-        Ds[p] = gm_space[kk] * Ds[e]
-        Dg[p] = gm_irr[kk] * Dg[e]
-    conj = (lambda a: dom.from_sympy(sp.conjugate(dom.to_sympy(a)))) if not irr.is_real else (lambda a: a)
-
-    def P(i, j):
-        acc = DomainMatrix.zeros((dim, dim), dom)
-        for Dm, Gm_ in zip(Ds, Dg):
-            c = Gm_.to_list()[i][j]
-            if c != dom.zero:
-                acc = acc + Dm * conj(c)
-        return acc * dom.convert(sp.Rational(d, n))
-
-    P11 = P(0, 0)
-    _, piv = P11.rref()
+    Ts = _intertwiners(V, G, t, irr)
+    if len(Ts) != m:
+        raise ArithmeticError(f"{irr.label} has {len(Ts)} intertwiners, expected the multiplicity {m}")
+    B_s = sp.Matrix.hstack(*[T[:, 0] for T in Ts])
+    cols_s = [sp.Matrix.hstack(*[T[:, i] for T in Ts]) for i in range(d)]
+    BH = B_s.T if irr.is_real else B_s.H.applyfunc(sp.expand)
+    all_m = unify([Gram, to_dm(B_s), to_dm(BH)] + [to_dm(c) for c in cols_s[1:]])
+    Gm, B, BHd = all_m[0], all_m[1], all_m[2]
+    cols = [B] + all_m[3:]
+    dom = Gm.domain
+    C = (BHd * Gm * B).inv() * BHd * Gm  # m x dim
+    _, piv = C.rref()
     if len(piv) != m:
         raise ArithmeticError(f"P_11 of {irr.label} has rank {len(piv)}, expected the multiplicity {m}")
-    cols = [P11.extract(list(range(dim)), [j]) for j in piv]
     # orthogonalise in the Gram inner product (real spaces; Hermitian for complex members)
     basis, norms = [], []
-    for v in cols:
-        w = v
+    for j in piv:
+        w = B * C.extract(list(range(m)), [j])
         for b, nb in zip(basis, norms):
             coef = _inner(b, Gm, w, dom, irr.is_real)
             w = w - b * dom.quo(coef, nb)
         basis.append(w)
         norms.append(_inner(w, Gm, w, dom, irr.is_real))
-    Ps = [P11] + [P(i, 0) for i in range(1, d)]
     out_sets = []
     out_cols = []
     for copy, (u, nu) in enumerate(zip(basis, norms)):
         root = sp.sqrt(sp.radsimp(dom.to_sympy(nu)))
+        a = C * u
         coords, elems, reads = [], [], []
         for i in range(d):
-            f = Ps[i] * u
-            vec = sp.ImmutableMatrix([sp.radsimp(sp.expand(a / root)) for a in f.to_Matrix()])
+            f = u if i == 0 else cols[i] * a
+            vec = sp.ImmutableMatrix([sp.radsimp(sp.expand(x / root)) for x in f.to_Matrix()])
             coords.append(vec)
             try:
                 el = V.element(list(vec))

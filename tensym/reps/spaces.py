@@ -314,11 +314,20 @@ class HarmonicSpace(Space):
         """+1 for 'g', -1 for 'u'."""
         return 1 if self.parity == "g" else -1
 
+    def _gram_dm(self):
+        """(H^T F H, H^T F) as DomainMatrices over QQ, F the Fischer weights (exact, computed once)."""
+        if getattr(self, "_gram_parts", None) is None:
+            H = DomainMatrix.from_Matrix(sp.Matrix(self._H)).convert_to(sp.QQ)
+            F = DomainMatrix.diag([sp.QQ(v) for v in _fischer(self.l)], sp.QQ)
+            HtF = H.transpose() * F
+            self._gram_parts = (HtF * H, HtF)
+        return self._gram_parts
+
     def _left_inverse(self):
         if self._pinv is None:
-            F = sp.diag(*_fischer(self.l))
-            G = self._H.T * F * self._H  # diagonal (orthogonal basis)
-            self._pinv = sp.ImmutableMatrix(G.inv() * self._H.T * F)
+            G, HtF = self._gram_dm()  # G is diagonal: the basis is orthogonal
+            inv = DomainMatrix.diag([sp.QQ.one / G[i, i].element for i in range(self.dim)], sp.QQ)
+            self._pinv = sp.ImmutableMatrix((inv * HtF).to_Matrix())
         return self._pinv
 
     def action(self, op):
@@ -349,8 +358,7 @@ class HarmonicSpace(Space):
         return tuple(sp.expand(e) for e in c)
 
     def gram(self):
-        F = sp.diag(*_fischer(self.l))
-        return sp.ImmutableMatrix(self._H.T * F * self._H)
+        return sp.ImmutableMatrix(self._gram_dm()[0].to_Matrix())
 
     def __repr__(self):
         return f"harmonics({self.l}, parity={self.parity!r})"
