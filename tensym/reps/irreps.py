@@ -15,6 +15,9 @@ Method
   Fischer inner product makes that basis orthonormal.  The matrices
   D_Gamma(g) = B^T G D(g) B are then real orthogonal for real irreps, and their
   traces are checked exactly against the characters.
+* The products over the group (the projections and the matrices of every
+  element from the generators) run on integer coordinates over the number
+  field of the entries (:class:`_FieldWalk`), exact and unbounded.
 
 Examples
 --------
@@ -26,10 +29,11 @@ Examples
 True
 """
 
+import numpy as np
 import sympy as sp
 from sympy.polys.matrices import DomainMatrix
 
-from tensym.reps.linalg import generator_data, orbit, to_dm, unify
+from tensym.reps.linalg import generator_data, to_dm, unify
 from tensym.reps.reduction import multiplicities, space_characters
 from tensym.reps.spaces import harmonics
 
@@ -72,6 +76,84 @@ def irrep_carrier(table, label):
     raise ArithmeticError(f"no harmonic space up to l = {MAX_SEARCH_L} carries {label} exactly once")
 
 
+class _FieldWalk:
+    """D(g) for every element from the generators, on integer coordinates over a number field (private).
+
+    The generators (DomainMatrices over ``dom``) and the extra numbers
+    ``weights`` are written as integer coordinate arrays over one number
+    field with a common denominator den (:func:`tensym.exact.fields.field_of`;
+    Python integers, no fixed width).  D(g) at depth t of the breadth-first
+    ``walk`` (see :func:`tensym.reps.linalg.generator_data`) is kept as an
+    integer array over den**t, so each element costs one object-array
+    product instead of a sympy field product per entry.
+    """
+
+    def __init__(self, gmats, walk, weights, dom):
+        from tensym.exact.fields import field_of
+
+        size = gmats[0].shape[0] if gmats else 1
+        entries = [dom.to_sympy(x) for m in gmats for row in m.to_list() for x in row] + list(weights)
+        uniq = list(dict.fromkeys(entries)) or [sp.Integer(1)]
+        K, den, ints_u = field_of(uniq)
+        where = {x: k for k, x in enumerate(uniq)}
+        N = K.degree
+        pos = 0
+        gens = []
+        for _m in gmats:
+            A = np.empty((N, size, size), dtype=object)
+            for e in range(size * size):
+                A[:, e // size, e % size] = ints_u[where[entries[pos + e]]]
+            pos += size * size
+            gens.append(A)
+        self.weights = [ints_u[where[x]] for x in entries[pos:]]
+        self.field, self.den, self.size = K, den, size
+        n = len(walk) + 1
+        mats = [None] * n
+        eye = np.zeros((N, size, size), dtype=object)
+        eye[0] = np.eye(size, dtype=object)
+        mats[0] = (eye, 0)
+        for p, k, e in walk:
+            B, depth = mats[e]
+            A = gens[k]
+            out = np.zeros((N, size, size), dtype=object)
+            for a, b, c, t in K.terms:
+                if A[a].any() and B[b].any():
+                    out[c] = out[c] + t * A[a].dot(B[b])
+            mats[p] = (out, depth + 1)
+        self.mats = mats  # (coordinates, depth): D(g) = coordinates / den**depth
+
+    def weighted_sum(self):
+        """(coordinates, denominator) of sum_g weights[g] D(g)."""
+        K, den = self.field, self.den
+        top = max(d for _, d in self.mats)
+        total = np.zeros((K.degree, self.size, self.size), dtype=object)
+        for (M, depth), wg in zip(self.mats, self.weights):
+            if not any(wg):
+                continue
+            scale = den ** (top - depth)
+            for a, b, c, t in K.terms:
+                if wg[b] and M[a].any():
+                    total[c] = total[c] + (t * wg[b] * scale) * M[a]
+        return total, den ** (top + 1)  # the weights carry one more factor den
+
+    def trace_equals_weights(self):
+        """True when tr D(g) equals weights[g] for every element (exact, on the coordinates)."""
+        den = self.den
+        for (M, depth), wg in zip(self.mats, self.weights):
+            tr = [sum(M[c, i, i] for i in range(self.size)) for c in range(self.field.degree)]
+            if any(t * den != int(w) * den**depth for t, w in zip(tr, wg)):
+                return False
+        return True
+
+    def entry(self, g, i, j):
+        """The sympy number D(g)[i, j]."""
+        M, depth = self.mats[g]
+        v = M[:, i, j]
+        if not any(v):
+            return sp.Integer(0)
+        return self.field.to_sympy(v, self.den**depth)
+
+
 def build_matrices(table, irr):
     """Tuple of exact irrep matrices aligned with ``table.group.operations``."""
     if irr.dim == 1:
@@ -101,13 +183,11 @@ def build_matrices(table, irr):
     cols = []
     # try basis harmonics in reading order: for l = 1 that is x, y, z (the basis stores z, x, y)
     order = [1, 2, 0] if getattr(space, "l", None) == 1 else list(range(dim))
+    fw = _FieldWalk(gmats, walk, [dom.to_sympy(c) for c in crow], dom)
+    total, denom = fw.weighted_sum()
     for j in order:
-        e = DomainMatrix([[dom.one if i == j else dom.zero] for i in range(dim)], (dim, 1), dom)
-        orb = orbit(e, gmats, walk, n)
-        v = orb[0] * crow[0]
-        for c, w in zip(crow[1:], orb[1:]):
-            if c != dom.zero:
-                v = v + w * c
+        v = DomainMatrix([[dom.from_sympy(fw.field.to_sympy(total[:, i, j], denom))] for i in range(dim)], (dim, 1),
+                         dom)
         if v.is_zero_matrix:
             continue
         if DomainMatrix.hstack(*(cols + [v])).rank() == len(cols) + 1:
@@ -131,34 +211,28 @@ def build_matrices(table, irr):
                          (d, d), dom)
     # M(g) = N^-1 B^T G D(g) B: coordinates in the orthogonal basis B, a homomorphism
     gen_small = [inv_n * BtG * m * B for m in gmats]
-    small = [None] * n
-    small[0] = DomainMatrix.eye(d, dom)
-    for p, k, e in walk:
-        small[p] = gen_small[k] * small[e]
-    for M, c in zip(small, crow):
-        ml = M.to_list()
-        tr = dom.zero
-        for i in range(d):
-            tr += ml[i][i]
-        if tr != c:  # c = conj(chi) = chi for real irreps
-            raise ArithmeticError(f"irrep matrices of {irr.label} do not reproduce its characters")
+    small = _FieldWalk(gen_small, walk, [dom.to_sympy(c) for c in crow], dom)
+    if not small.trace_equals_weights():  # the weights are conj(chi) = chi for real irreps
+        raise ArithmeticError(f"irrep matrices of {irr.label} do not reproduce its characters")
     # orthonormal basis: D_Gamma(g)_ij = M(g)_ij sqrt(n_i / n_j)
     factor = [[_clean(sp.sqrt(sp.radsimp(dom.to_sympy(norms[i]) / dom.to_sympy(norms[j]))))
                for j in range(d)] for i in range(d)]
     simple = all(f.is_Rational or (f.is_Pow and f.base.is_Rational) or (f.is_Mul and all(
         a.is_Rational or (a.is_Pow and a.base.is_Rational) for a in f.args)) for row in factor for f in row)
-    zero = dom.zero
     out = []
-    for M in small:
-        rows = M.to_list()
+    done = {}
+    for g in range(n):
         entries = []
         for i in range(d):
             for j in range(d):
-                a = rows[i][j]
-                if a == zero:
+                a = small.entry(g, i, j)
+                if a == 0:
                     entries.append(sp.Integer(0))
                     continue
-                v = sp.expand(dom.to_sympy(a) * factor[i][j])
-                entries.append(v if simple else _clean(v))
+                key = (a, i, j)
+                if key not in done:
+                    v = sp.expand(a * factor[i][j])
+                    done[key] = v if simple else _clean(v)
+                entries.append(done[key])
         out.append(sp.ImmutableMatrix(d, d, entries))
     return tuple(out)

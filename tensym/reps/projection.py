@@ -36,11 +36,10 @@ import math
 
 import numpy as np
 import sympy as sp
-from sympy.polys.matrices import DomainMatrix
 
-from tensym.errors import InvalidArgumentError, RepresentationError
+from tensym.errors import InvalidArgumentError
 from tensym.reps.inputs import as_group_arg, as_space_arg
-from tensym.reps.linalg import generator_data, orbit, to_dm, unify
+from tensym.reps.linalg import to_dm, unify
 from tensym.reps.spaces import X, Y, Z, harmonics, monomials
 
 __all__ = ["project", "symmetry_adapted", "SymmetryAdaptedBasis", "PartnerSet", "readable"]
@@ -319,9 +318,17 @@ def readable(expr):
         return e
     coeffs = p.coeffs()
     lead = coeffs[0]
-    ratios = [r if r.is_Rational else sp.nsimplify(sp.radsimp(r)) for r in (c / lead for c in coeffs)]
-    if not all(r.is_Rational for r in ratios):
-        return e
+    ratios = []
+    for c in coeffs:
+        r = c / lead
+        if not r.is_Rational:
+            r = sp.radsimp(r)
+            if not r.is_Rational and _is_surd(r):
+                return e  # a rational combination of square roots of distinct square-free integers: irrational
+            r = sp.nsimplify(r)
+            if not r.is_Rational:
+                return e
+        ratios.append(r)
     den = sp.ilcm(*[r.q for r in ratios]) if len(ratios) > 1 else ratios[0].q
     ints = [int(r * den) for r in ratios]
     g = sp.igcd(*ints) if len(ints) > 1 else abs(ints[0])
@@ -331,6 +338,15 @@ def readable(expr):
     if scale == 1:
         return prim
     return sp.Mul(scale, prim, evaluate=False)
+
+
+def _is_surd(r):
+    """True for a sum of rational multiples of square roots of integers, as sympy writes them."""
+    for term in sp.Add.make_args(r):
+        for f in sp.Mul.make_args(term):
+            if not (f.is_Rational or (f.is_Pow and f.exp == sp.S.Half and f.base.is_Integer and f.base > 1)):
+                return False
+    return True
 
 
 @dataclass(frozen=True)
