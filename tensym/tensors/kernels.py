@@ -155,6 +155,8 @@ def quadratic_action(orbits, qform):
     d, _, A1, B1 = qform
     reps = _rep_array(orbits)
     n = orbits.rank
+    # the last Kronecker step holds k0, k1, two einsum products and n0, n1: six (n_orbits x 3**rank) int64 arrays
+    orbits.require(orbits.dense_bytes(copies=6), "the action of a 3- or 6-fold axis (exact Kronecker products)")
     if n == 0:
         one = np.ones((1, 1), dtype=np.int64)
         return one, np.zeros_like(one)
@@ -190,6 +192,7 @@ def float_action(orbits, matrix):
     R = np.asarray(matrix, dtype=np.float64)
     reps = _rep_array(orbits)
     n = orbits.rank
+    orbits.require(orbits.dense_bytes(copies=3), "the numeric action of an operation (Kronecker products)")
     if n == 0:
         return np.ones((1, 1))
     k = R[reps[:, 0], :]
@@ -240,6 +243,7 @@ def lie_action(orbits, generator):
             out.append(int(x))
         L.append(out)
     dim = len(orbits.reps)
+    orbits.require(orbits.dense_bytes("orbits"), "the action of a rotation generator")
     N = np.zeros((dim, dim), dtype=np.int64)
     for o2, rep in enumerate(orbits.reps):
         for k, ik in enumerate(rep):

@@ -185,11 +185,17 @@ def _rational_rows(spec, group, f, quads, roots, ratio, zero):
     orb = spec.orbits
     n = len(orb.reps)
     F = np.array([float(x) for x in f])
-    P, classes = _class_projection(n, roots, ratio, zero)
-    if not classes:
+    if all(r in zero for r in roots):
         return []
+    lies = _integer_lie(group)
+    if not lies and not quads:  # signed permutations only: the union-find has done everything
+        return []
+    # float64 blocks (one or two per generator, n x n) and their stack, times the (n x classes) projection
+    orb.require(orb.dense_bytes("orbits", copies=3 * (len(lies) + 2 * len(quads)) + 1),
+                "the constraint rows of the invariant solver")
+    P, classes = _class_projection(n, roots, ratio, zero)
     blocks = []
-    for L in _integer_lie(group):
+    for L in lies:
         blocks.append(lie_action(orb, L).astype(np.float64) * F)
     for q, par in quads:
         den = q[1]
@@ -385,6 +391,7 @@ def _needs_general(group):
 
 def _aggregation(orb):
     """int64 (3**rank, n): column o holds the signs of orbit o's members (the orbit basis vector E_o)."""
+    orb.require(orb.dense_bytes(copies=2), "the orbit aggregation matrix (int64 and its exact copy)")
     S = np.zeros((3**orb.rank, len(orb.reps)), dtype=np.int64)
     flats = np.nonzero(orb.orbit_of >= 0)[0]
     S[flats, orb.orbit_of[flats]] = orb.sign_of[flats]
