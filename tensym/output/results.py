@@ -415,7 +415,7 @@ def batch_table(b):
     cols = ("#", "verdict", "residual", "max deviation") + tuple(b.names)
     rows = []
     for i in range(len(b)):
-        rows.append((str(i), "consistent" if bool(b.passes[i]) else "inconsistent",
+        rows.append((str(i), str(b.verdicts[i]),
                      _num_text(b.residual_fraction[i], 3), _num_text(b.max_deviation[i], 3))
                     + tuple(_num_text(v, 5) for v in b.constants[i]))
     units = f" [{b.units}]" if b.units else ""
