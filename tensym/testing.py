@@ -19,7 +19,8 @@ from functools import reduce
 
 import numpy as np
 
-__all__ = ["brute_force_dimension", "symmetrizer", "full_matrix", "is_invariant_numeric", "brute_force_partners"]
+__all__ = ["brute_force_dimension", "symmetrizer", "full_matrix", "is_invariant_numeric", "brute_force_partners",
+           "cubic_voigt", "hexagonal_voigt"]
 
 
 def full_matrix(R, rank):
@@ -160,3 +161,38 @@ def brute_force_partners(space, group, *, real=True):
                           for f in (sp.re, sp.im))
             result.append((irr.label, copy, parts))
     return result
+
+
+def cubic_voigt(c11, c12, c44):
+    """6x6 float64 stiffness of the cubic pattern (Nye 1985, ch. VIII, from memory).
+
+    c11 = c22 = c33, c12 = c13 = c23, c44 = c55 = c66, the rest zero.
+
+    Examples
+    --------
+    >>> float(cubic_voigt(3.0, 1.0, 2.0)[2, 1]), float(cubic_voigt(3.0, 1.0, 2.0)[5, 5])
+    (1.0, 2.0)
+    """
+    c = np.zeros((6, 6))
+    c[:3, :3] = c12
+    c[[0, 1, 2], [0, 1, 2]] = c11
+    c[[3, 4, 5], [3, 4, 5]] = c44
+    return c
+
+
+def hexagonal_voigt(c11, c12, c13, c33, c44):
+    """6x6 float64 stiffness of the hexagonal pattern (Nye 1985, ch. VIII, from memory): c66 = (c11 - c12)/2.
+
+    Examples
+    --------
+    >>> float(hexagonal_voigt(5.0, 1.0, 2.0, 6.0, 3.0)[5, 5])
+    2.0
+    """
+    c = np.zeros((6, 6))
+    c[0, 0] = c[1, 1] = c11
+    c[0, 1] = c[1, 0] = c12
+    c[0, 2] = c[2, 0] = c[1, 2] = c[2, 1] = c13
+    c[2, 2] = c33
+    c[3, 3] = c[4, 4] = c44
+    c[5, 5] = (c11 - c12) / 2
+    return c

@@ -287,8 +287,16 @@ def _primes_below(limit, count):
 _PRIMES = _primes_below(_PRIME_LIMIT, 64)
 
 
-def _bits(x):
-    return int(x).bit_length()
+def _primes_for(bound):
+    """The fewest primes of the table whose product exceeds 2 * bound + 1 (so CRT recovers |x| <= bound), or None."""
+    need = int(2 * bound + 1).bit_length()
+    primes, acc = [], 0.0
+    for p in _PRIMES:
+        primes.append(p)
+        acc += math.log2(p)
+        if acc > need + 1:
+            return primes
+    return None
 
 
 def kron_times(reps, A, field, right):
@@ -334,14 +342,8 @@ def kron_times(reps, A, field, right):
     final_ok = 3**rank * 2**46 < 2**62
     if not (step_ok and final_ok):
         return _kron_times_exact(reps, A, field, right)
-    need = _bits(2 * bound + 1)
-    primes, acc = [], 0
-    for p in _PRIMES:
-        primes.append(p)
-        acc += math.log2(p)
-        if acc > need + 1:
-            break
-    else:  # pragma: no cover - a bound beyond 64 * 23 bits: exact path
+    primes = _primes_for(bound)
+    if primes is None:  # pragma: no cover - a bound beyond 64 * 23 bits: exact path
         return _kron_times_exact(reps, A, field, right)
     residues = []
     for p in primes:
@@ -410,14 +412,8 @@ class ModularMatrix:
             return np.zeros((N, n, B.shape[1]), dtype=object)
         if n >= 2**16:  # pragma: no cover - far beyond any reduced space tensym builds
             return np.stack([self.exact[c].dot(B) for c in range(N)])
-        need = _bits(2 * n * self.max * bmax + 1)
-        primes, acc = [], 0.0
-        for p in _PRIMES:
-            primes.append(p)
-            acc += math.log2(p)
-            if acc > need + 1:
-                break
-        else:  # pragma: no cover
+        primes = _primes_for(n * self.max * bmax)
+        if primes is None:  # pragma: no cover - a bound beyond 64 * 23 bits
             return np.stack([self.exact[c].dot(B) for c in range(N)])
         residues = []
         for p in primes:

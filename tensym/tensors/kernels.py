@@ -123,24 +123,14 @@ def _quadratic_form(matrix):
 
 
 def _aggregate(orbits, K):
-    """Sum the columns of K (over flat indices) into orbit columns with signs."""
-    cache = getattr(orbits, "_agg", None)
-    if cache is None:
-        flats = np.nonzero(orbits.orbit_of >= 0)[0]
-        order = flats[np.argsort(orbits.orbit_of[flats], kind="stable")]
-        starts = np.searchsorted(orbits.orbit_of[order], np.arange(len(orbits.reps)))
-        cache = (order, orbits.sign_of[order], starts)
-        orbits._agg = cache
-    order, sgn, starts = cache
+    """Sum the columns of K (over flat indices) into orbit columns with signs (tables from ``orbits._agg``)."""
+    order, sgn, starts = orbits._agg
     return np.add.reduceat(K[:, order] * sgn, starts, axis=1)
 
 
 def _rep_array(orbits):
-    arr = getattr(orbits, "_reparr", None)
-    if arr is None:
-        arr = np.array(orbits.reps, dtype=np.int64).reshape(len(orbits.reps), orbits.rank)
-        orbits._reparr = arr
-    return arr
+    """The representatives as a read-only int64 array (n, rank) (``orbits._reparr``)."""
+    return orbits._reparr
 
 
 def quadratic_action(orbits, qform):

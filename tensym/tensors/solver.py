@@ -41,6 +41,7 @@ import sympy as sp
 from tensym.errors import TensymError
 from tensym.exact.fields import ModularMatrix, field_of, kron_times, rref_field
 from tensym.exact.linalg import QuadNumber, rref_integer, rref_sparse
+from tensym.exact.matrices import float_key
 from tensym.tensors.kernels import (
     integer_generator,
     _rep_array,
@@ -140,7 +141,7 @@ def _galois_stable_uncached(group, d):
         if dd not in (1, d):
             return False
         conj = (A - np.sqrt(d) * B) / den
-        key = tuple(int(v) for v in np.rint(conj.ravel() * 1e8)) + (int(op.time_reversal),)
+        key = float_key(conj) + (int(op.time_reversal),)
         if key not in keys:
             return False
     return True
@@ -370,7 +371,7 @@ def _standard_frame_uncached(group):
     keys = set(group.operation_keys()) if hasattr(group, "operation_keys") else {op.key for op in group.operations}
     for g in std.generators:
         m = q @ g.numeric @ q.T
-        key = tuple(int(v) for v in np.rint(m.ravel() * 1e8)) + (int(g.time_reversal),)
+        key = float_key(m) + (int(g.time_reversal),)
         if key not in keys:
             return None
     return std, sp.ImmutableMatrix(Q)

@@ -13,30 +13,10 @@ import sympy as sp
 from hypothesis import given, settings, strategies as st
 
 import tensym
+from tensym.testing import cubic_voigt as _cubic, hexagonal_voigt as _hexagonal
 from tensym.data.dataset import TensorData
 from tensym.errors import DataError
 from tensym.tensors.catalog import get_property
-
-
-def _cubic(c11, c12, c44):
-    # the cubic Voigt pattern (Nye 1985, ch. VIII, from memory): c11 = c22 = c33, c12 = c13 = c23, c44 = c55 = c66
-    c = np.zeros((6, 6))
-    c[:3, :3] = c12
-    c[[0, 1, 2], [0, 1, 2]] = c11
-    c[[3, 4, 5], [3, 4, 5]] = c44
-    return c
-
-
-def _hexagonal(c11, c12, c13, c33, c44):
-    # the hexagonal pattern (Nye 1985, ch. VIII, from memory): c66 = (c11 - c12) / 2
-    c = np.zeros((6, 6))
-    c[0, 0] = c[1, 1] = c11
-    c[0, 1] = c[1, 0] = c12
-    c[0, 2] = c[2, 0] = c[1, 2] = c[2, 1] = c13
-    c[2, 2] = c33
-    c[3, 3] = c[4, 4] = c44
-    c[5, 5] = (c11 - c12) / 2
-    return c
 
 
 CUBIC = (166.0, 64.0, 80.0)          # invented constants (GPa-like)

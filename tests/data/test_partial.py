@@ -12,23 +12,12 @@ import pytest
 from hypothesis import given, settings, strategies as st
 
 import tensym
+from tensym.testing import hexagonal_voigt as _hexagonal
 from tensym.data.model import layout, numeric_form
 from tensym.errors import DataError
 from tensym.groups import as_group
 
 NAN = np.nan
-
-
-def _hexagonal(c11, c12, c13, c33, c44):
-    # the hexagonal Voigt pattern (Nye 1985, ch. VIII, from memory): c66 = (c11 - c12) / 2
-    c = np.zeros((6, 6))
-    c[0, 0] = c[1, 1] = c11
-    c[0, 1] = c[1, 0] = c12
-    c[0, 2] = c[2, 0] = c[1, 2] = c[2, 1] = c13
-    c[2, 2] = c33
-    c[3, 3] = c[4, 4] = c44
-    c[5, 5] = (c11 - c12) / 2
-    return c
 
 
 HEX = (200.0, 80.0, 60.0, 180.0, 40.0)  # invented

@@ -11,26 +11,7 @@ import pytest
 from hypothesis import given, settings, strategies as st
 
 import tensym
-
-
-def _cubic(c11, c12, c44):
-    # Nye 1985, ch. VIII (from memory)
-    c = np.zeros((6, 6))
-    c[:3, :3] = c12
-    c[[0, 1, 2], [0, 1, 2]] = c11
-    c[[3, 4, 5], [3, 4, 5]] = c44
-    return c
-
-
-def _hexagonal(c11, c12, c13, c33, c44):
-    c = np.zeros((6, 6))
-    c[0, 0] = c[1, 1] = c11
-    c[0, 1] = c[1, 0] = c12
-    c[0, 2] = c[2, 0] = c[1, 2] = c[2, 1] = c13
-    c[2, 2] = c33
-    c[3, 3] = c[4, 4] = c44
-    c[5, 5] = (c11 - c12) / 2
-    return c
+from tensym.testing import cubic_voigt as _cubic, hexagonal_voigt as _hexagonal
 
 
 def test_user_checks_an_unstable_cubic_stiffness():

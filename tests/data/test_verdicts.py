@@ -4,16 +4,8 @@ import numpy as np
 import pytest
 
 import tensym
+from tensym.testing import cubic_voigt as _cubic
 from tensym.errors import DataError
-
-
-def _cubic(c11, c12, c44):
-    # the cubic Voigt pattern (Nye 1985, ch. VIII, from memory)
-    c = np.zeros((6, 6))
-    c[:3, :3] = c12
-    c[[0, 1, 2], [0, 1, 2]] = c11
-    c[[3, 4, 5], [3, 4, 5]] = c44
-    return c
 
 
 C = _cubic(200.0, 100.0, 80.0)   # invented, c11 = 200 GPa
